@@ -1,0 +1,46 @@
+import { MikroORM } from '@mikro-orm/sqlite';
+import { ormConfig, type DatabaseOptions } from './config';
+import { Organization } from './entities';
+import { DemoSeeder } from './seeders/demo-seeder';
+
+export type Database = MikroORM;
+
+/** Open the database (creating the file and its folder if missing). Does not migrate. */
+export async function openDatabase(options: DatabaseOptions): Promise<Database> {
+  return MikroORM.init(ormConfig(options));
+}
+
+/** Apply every pending migration. Returns the names applied. */
+export async function migrate(orm: Database): Promise<string[]> {
+  const applied = await orm.getMigrator().up();
+  return applied.map((m) => m.name);
+}
+
+/** True when the entities describe a schema the migrations do not create. */
+export async function migrationsOutOfDate(orm: Database): Promise<boolean> {
+  const diff = await orm.getSchemaGenerator().getUpdateSchemaSQL({ wrap: false, safe: false });
+  return diff.trim().length > 0;
+}
+
+/**
+ * Seed the demo firm unless any firm exists already: an existing database is never
+ * overwritten. Returns true when it seeded.
+ */
+export async function seedDemoIfEmpty(orm: Database): Promise<boolean> {
+  const em = orm.em.fork();
+  const firms = await em.count(Organization, {});
+  if (firms > 0) return false;
+  await orm.getSeeder().seed(DemoSeeder);
+  return true;
+}
+
+/** Database health for /api/health: a trivial query and the pending-migration count. */
+export async function databaseStatus(orm: Database): Promise<{ ok: boolean; pendingMigrations: number; detail?: string }> {
+  try {
+    await orm.em.fork().getConnection().execute('select 1 as ok');
+    const pending = await orm.getMigrator().getPendingMigrations();
+    return { ok: true, pendingMigrations: pending.length };
+  } catch (err) {
+    return { ok: false, pendingMigrations: -1, detail: err instanceof Error ? err.message : String(err) };
+  }
+}

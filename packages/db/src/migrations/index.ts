@@ -1,0 +1,12 @@
+import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201193224_initial } from './Migration20261201193224_initial';
+
+/**
+ * Every migration, in order. `npm run migration:create -w @gloaming/db -- <name>` writes a
+ * new file beside this one and appends it here; `npm run db:check` fails in CI until
+ * entities and migrations agree.
+ */
+export const migrationsList: MigrationObject[] = [
+  { name: 'Migration20261201193224_initial', class: Migration20261201193224_initial },
+  // next migration
+];
