@@ -1,0 +1,3 @@
+export * from './problem';
+export * from './health';
+export * from './auth';
