@@ -1,0 +1,1 @@
+export { startMailCatcher, type MailCatcher, type CaughtMessage, type MailCatcherOptions } from './mail-catcher';
