@@ -1,0 +1,3 @@
+export * from './tables';
+export * from './awg';
+export * from './cable-spec';

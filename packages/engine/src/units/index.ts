@@ -1,0 +1,2 @@
+export * from './engine-input-error';
+export * from './length';
