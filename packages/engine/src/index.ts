@@ -7,4 +7,37 @@ export * from './findings';
 export * from './units';
 export * from './cables';
 // -- connector blocks, terminal schedule, wiring check (section B)
+export {
+  blockNeeds,
+  blockPosition,
+  type BlockCableRef,
+  type BlockPosition,
+  type ConnectorBlockType,
+  type SeriesStringLayout,
+  type StringFittingRef,
+} from './blocks/connector-block';
+export {
+  planConnectorBlocks,
+  type BlockPlan,
+  type BlockPlanInput,
+  type PlannedBlock,
+  type PlannedLink,
+  type PlannedTerminal,
+} from './blocks/block-plan';
+export { type BlockEntries, type EntryFit, type EntryUse } from './blocks/entry-seals';
+export { type InstallerStep } from './blocks/installer-steps';
+export {
+  describeConductorEnd,
+  formatConductorEnd,
+  parseConductorEnd,
+  type ConductorEnd,
+  type EndPolarity,
+} from './wiring/conductor-id';
+export {
+  type ScheduleBlock,
+  type ScheduleTerminal,
+  type TerminalSchedule,
+  type WiringKind,
+} from './wiring/terminal-schedule';
+export { checkWiring, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
 // -- constant-voltage runs, takeoff, labour, money (section C)

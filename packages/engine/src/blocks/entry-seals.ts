@@ -1,0 +1,72 @@
+/**
+ * Cable entries of one block: a seal on every entry used, a reducer where the cable is
+ * thinner than the entry seals on its own, a blanking plug in every spare entry (an open
+ * entry defeats the block's IP rating; common practice).
+ */
+import { finding, type Finding } from '../findings';
+import type { BlockCableRef, ConnectorBlockType } from './connector-block';
+
+export type EntryFit = 'seal' | 'seal-with-reducer' | 'too-large' | 'size-unknown';
+
+export interface EntryUse {
+  /** `driver-lead`, `fitting:3` (its tail) or `link:2`. */
+  cable: string;
+  /** Plain words, e.g. "fitting 3 tail". */
+  description: string;
+  outerDiameterMm: number | null;
+  fit: EntryFit;
+}
+
+export interface BlockEntries {
+  total: number;
+  used: number;
+  spare: number;
+  /** One per used entry (sized to the entry; unknown cable sizes still take one). */
+  seals: number;
+  /** Reducing inserts for cables below the entry's sealing range. */
+  reducers: number;
+  /** For the spare entries. */
+  blankingPlugs: number;
+  cables: EntryUse[];
+}
+
+export interface EntryCable {
+  cable: string;
+  description: string;
+  ref: BlockCableRef | undefined;
+}
+
+export function planEntries(
+  blockNumber: number,
+  type: ConnectorBlockType,
+  cables: readonly EntryCable[],
+  findings: Finding[],
+): BlockEntries {
+  const range = type.entrySealRangeMm;
+  const uses: EntryUse[] = [];
+  let reducers = 0;
+  for (const c of cables) {
+    const d = c.ref?.outerDiameterMm;
+    let fit: EntryFit;
+    if (d === undefined || !range) fit = 'size-unknown';
+    else if (d < range.min) fit = 'seal-with-reducer';
+    else if (d > range.max) fit = 'too-large';
+    else fit = 'seal';
+    if (fit === 'seal-with-reducer') reducers++;
+    if (fit === 'too-large') {
+      findings.push(
+        finding(
+          'cable-too-large-for-entry',
+          'error',
+          `The ${c.description} (${d} mm across) is too thick for an entry of block ${blockNumber}, which seals ` +
+            `${range!.min}-${range!.max} mm. Choose a block with larger entries.`,
+          { subject: `block:${blockNumber}`, values: { outerDiameterMm: d!, entryMaxMm: range!.max } },
+        ),
+      );
+    }
+    uses.push({ cable: c.cable, description: c.description, outerDiameterMm: d ?? null, fit });
+  }
+  const used = cables.length;
+  const spare = Math.max(0, type.cableEntries - used);
+  return { total: type.cableEntries, used, spare, seals: used, reducers, blankingPlugs: spare, cables: uses };
+}
