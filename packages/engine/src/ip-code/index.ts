@@ -1,0 +1,2 @@
+export * from './ip-code';
+export * from './installation-location';
