@@ -1,3 +1,4 @@
 export * from './problem';
 export * from './health';
 export * from './auth';
+export * from './organization';

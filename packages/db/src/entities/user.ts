@@ -16,7 +16,7 @@ export const User = defineEntity({
     organization: () => p.manyToOne(Organization).index(),
     email: p.string().unique(),
     name: p.string(),
-    passwordHash: p.string().nullable().hidden(),
+    passwordHash: p.string().nullable(),
     // A plain string column: MikroORM 6.6.16's SQLite schema reader misparses check constraints of
     // three or more enum items, so enums live in the type and in the contracts' validation.
     role: p.string().$type<Role>(),

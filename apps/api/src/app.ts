@@ -1,0 +1,95 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { RequestContext } from '@gloaming/db';
+import type { AppDeps, Logger, ModuleDeps } from './app-deps';
+import { createLucia } from './auth/lucia';
+import { checkOrigin, loadSession } from './auth/middleware';
+import { apiNotFound, errorHandler } from './http/problem';
+import type { RegisteredRoute } from './http/routes';
+import { staticApp } from './http/static-apps';
+import { healthRouter } from './modules/health/router';
+import { organizationRouter } from './modules/organization/router';
+import { passwordResetRouter } from './modules/password-resets/router';
+import { sessionRouter } from './modules/session/router';
+import { teamRouters } from './modules/team/router';
+
+export interface CreateAppOptions extends AppDeps {
+  /** Built front ends to serve; omitted in api-only tests. */
+  frontEnds?: { workbenchDir?: string; portalDir?: string };
+}
+
+export interface GloamingApp {
+  app: Express;
+  /** Every api route with its policy: the route-matrix test and the docs read this. */
+  routes: RegisteredRoute[];
+}
+
+const consoleLogger: Logger = {
+  info: (msg) => console.log(msg),
+  error: (msg, err) => console.error(msg, err),
+};
+
+/** Build the Express app. Never listens; `main.ts` does. */
+export function createApp(options: CreateAppOptions): GloamingApp {
+  const logger = options.logger ?? consoleLogger;
+  const deps: ModuleDeps = { ...options, logger, auth: createLucia(options.orm, options.config.secureCookies) };
+  const routes: RegisteredRoute[] = [];
+  const app = express();
+
+  app.disable('x-powered-by');
+  app.set('trust proxy', options.config.trustProxy);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          scriptSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'"],
+          baseUri: ["'self'"],
+          upgradeInsecureRequests: options.config.secureCookies ? [] : null,
+        },
+      },
+      strictTransportSecurity: options.config.secureCookies,
+    }),
+  );
+  if (options.config.logRequests) {
+    app.use((req, res, next) => {
+      const t0 = Date.now();
+      res.on('finish', () => logger.info(`${req.method} ${req.originalUrl} ${res.statusCode} ${Date.now() - t0}ms`));
+      next();
+    });
+  }
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(checkOrigin([new URL(options.config.publicUrl).host]));
+  api.use((_req, res, next) => {
+    const em = options.orm.em.fork();
+    res.locals.em = em;
+    RequestContext.create(em, next);
+  });
+  api.use(loadSession(deps.auth));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(healthRouter(deps, routes));
+  api.use(sessionRouter(deps, routes));
+  for (const r of teamRouters(deps, routes)) api.use(r);
+  api.use(passwordResetRouter(deps, routes));
+  api.use(organizationRouter(deps, routes));
+  api.use('/api', apiNotFound);
+  app.use(api);
+
+  if (options.frontEnds?.portalDir) app.use(staticApp('/portal', options.frontEnds.portalDir));
+  if (options.frontEnds?.workbenchDir) app.use(staticApp('/', options.frontEnds.workbenchDir));
+
+  app.use(errorHandler((msg, err) => logger.error(msg, err)));
+  return { app, routes };
+}

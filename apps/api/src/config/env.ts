@@ -1,0 +1,109 @@
+import { resolve } from 'node:path';
+import { z } from 'zod';
+
+const bool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+/**
+ * Every setting the api reads, validated at start-up. Defaults make `npm start` work on a
+ * fresh checkout; production sets NODE_ENV=production, PUBLIC_URL and the SMTP settings.
+ * `.env.example` at the repo root lists them; keep the two in step.
+ */
+export const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  /** Where the SQLite file and uploads live. */
+  DATA_DIR: z.string().default('./data'),
+  /** Origin the browser sees (links in e-mails, CSRF origin check). Defaults to http://localhost:PORT. */
+  PUBLIC_URL: z.url().optional(),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  /** Defaults to the local catcher's port when the fakes run, else 587. */
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  SMTP_SECURE: bool.default(false),
+  MAIL_FROM: z.string().default('Gloaming <no-reply@gloaming.invalid>'),
+  /** Start the local stand-ins (SMTP catcher and inbox) in-process. Defaults on outside production. */
+  GLOAMING_FAKES: bool.optional(),
+  GLOAMING_INBOX_PORT: z.coerce.number().int().min(0).max(65535).default(3025),
+  GLOAMING_SMTP_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Seed the demo firm into an empty database. */
+  GLOAMING_SEED_DEMO: bool.default(true),
+  /** Express "trust proxy" setting, for the client IP behind a reverse proxy. */
+  TRUST_PROXY: z.string().default('loopback'),
+  /** Sign-in throttle: failed attempts allowed per account, and per IP, in the window. */
+  GLOAMING_SIGNIN_MAX_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
+  GLOAMING_SIGNIN_MAX_PER_IP: z.coerce.number().int().min(1).default(30),
+  GLOAMING_SIGNIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  LOG_REQUESTS: bool.default(false),
+});
+export type Env = z.infer<typeof EnvSchema>;
+
+export interface AppConfig {
+  env: Env['NODE_ENV'];
+  port: number;
+  host: string;
+  dataDir: string;
+  databaseFile: string;
+  publicUrl: string;
+  secureCookies: boolean;
+  startFakes: boolean;
+  seedDemo: boolean;
+  trustProxy: string;
+  logRequests: boolean;
+  mail: {
+    host: string;
+    port: number;
+    secure: boolean;
+    user?: string;
+    pass?: string;
+    from: string;
+  };
+  inboxPort: number;
+  signInThrottle: { maxPerAccount: number; maxPerIp: number; windowMs: number };
+  version: string;
+}
+
+export class ConfigError extends Error {}
+
+export function loadConfig(source: NodeJS.ProcessEnv = process.env, version = '0.0.0'): AppConfig {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  const startFakes = e.GLOAMING_FAKES ?? e.NODE_ENV !== 'production';
+  const dataDir = resolve(e.DATA_DIR);
+  const publicUrl = (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, '');
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    dataDir,
+    databaseFile: resolve(dataDir, 'gloaming.sqlite'),
+    publicUrl,
+    secureCookies: e.NODE_ENV === 'production',
+    startFakes,
+    seedDemo: e.GLOAMING_SEED_DEMO,
+    trustProxy: e.TRUST_PROXY,
+    logRequests: e.LOG_REQUESTS,
+    mail: {
+      host: e.SMTP_HOST,
+      port: e.SMTP_PORT ?? (startFakes ? e.GLOAMING_SMTP_CATCHER_PORT : 587),
+      secure: e.SMTP_SECURE,
+      ...(e.SMTP_USER ? { user: e.SMTP_USER } : {}),
+      ...(e.SMTP_PASS ? { pass: e.SMTP_PASS } : {}),
+      from: e.MAIL_FROM,
+    },
+    inboxPort: e.GLOAMING_INBOX_PORT,
+    signInThrottle: {
+      maxPerAccount: e.GLOAMING_SIGNIN_MAX_PER_ACCOUNT,
+      maxPerIp: e.GLOAMING_SIGNIN_MAX_PER_IP,
+      windowMs: e.GLOAMING_SIGNIN_WINDOW_MINUTES * 60_000,
+    },
+    version,
+  };
+}

@@ -1,0 +1,49 @@
+import { SignInRequest } from '@gloaming/contracts';
+import { signInThrottles } from '../../auth/throttle';
+import type { ModuleDeps } from '../../app-deps';
+import { anySignedIn, moduleRouter, publicRoute, route, type RegisteredRoute } from '../../http/routes';
+import { presentAuthUser, presentSessionUser } from './presenter';
+import { authenticate, startSession } from './service';
+
+export function sessionRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
+  const { auth } = deps;
+  return moduleRouter('/api/session', registry, [
+    route({
+      method: 'post',
+      path: '/',
+      summary: 'Sign in with e-mail and password',
+      policy: publicRoute,
+      before: signInThrottles(deps.config.signInThrottle),
+      schemas: { body: SignInRequest },
+      handler: async ({ req, res, input, em }) => {
+        const user = await authenticate(em, input.body.email, input.body.password);
+        user.lastSignInAt = new Date();
+        await em.flush();
+        const previous = auth.readSessionCookie(req.headers.cookie ?? '') ?? undefined;
+        await startSession(auth, res, user, previous);
+        res.status(200).json({ user: presentSessionUser(user) });
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/',
+      summary: 'The signed-in user',
+      policy: anySignedIn,
+      handler: ({ res, auth: ctx }) => {
+        res.json({ user: presentAuthUser(ctx.user) });
+      },
+    }),
+    route({
+      method: 'delete',
+      path: '/',
+      summary: 'Sign out',
+      policy: publicRoute,
+      handler: async ({ req, res }) => {
+        const id = auth.readSessionCookie(req.headers.cookie ?? '');
+        if (id) await auth.invalidateSession(id);
+        res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+        res.status(204).end();
+      },
+    }),
+  ]);
+}
