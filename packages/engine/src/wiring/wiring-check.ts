@@ -352,8 +352,19 @@ function reportShortAndBypass(a: Analysis): void {
 
 /** Constant current: one loop from driver + through every fitting, + first, to driver −. */
 function analyseSeries(a: Analysis): number[] | null {
-  const { n, nodeOf, nodeEnds, findings } = a;
+  const { n, nodeOf, findings } = a;
   reportShortAndBypass(a);
+  // A bypassed fitting is a wire loop on one node: it takes no part in the loop.
+  let nodeEnds = a.nodeEnds;
+  let anyBypass = false;
+  for (let k = 1; k <= n && !anyBypass; k++) anyBypass = bypassed(a, k);
+  if (anyBypass) {
+    nodeEnds = new Map();
+    for (const [root, ends] of a.nodeEnds) {
+      const kept = ends.filter((e) => e < 2 || !bypassed(a, e >> 1));
+      if (kept.length > 0) nodeEnds.set(root, kept);
+    }
+  }
 
   // Fittings sharing both nodes are in parallel.
   const pairs = new Map<number, number[]>();
@@ -368,11 +379,16 @@ function analyseSeries(a: Analysis): number[] | null {
     else pairs.set(key, [k]);
   }
   const parallelExtra = new Map<number, number>(); // node -> ends explained by parallel groups
+  const implicated = new Set<number>(); // fittings already named by a finding below
   for (const group of pairs.values()) {
     if (group.length < 2) continue;
     const k = group[0]!;
     const x = nodeOf[2 * k]!;
     const y = nodeOf[2 * k + 1]!;
+    // Fittings whose two nodes carry nothing else form a closed loop of their own
+    // (reported below as outside the loop), not a parallel branch on the driver.
+    if (nodeEnds.get(x)!.length === group.length && nodeEnds.get(y)!.length === group.length) continue;
+    for (const j of group) implicated.add(j);
     parallelExtra.set(x, (parallelExtra.get(x) ?? 0) + group.length - 1);
     parallelExtra.set(y, (parallelExtra.get(y) ?? 0) + group.length - 1);
     findings.push(
@@ -388,8 +404,12 @@ function analyseSeries(a: Analysis): number[] | null {
   }
 
   // Open ends and branches.
+  const markNode = (ends: readonly number[]) => {
+    for (const e of ends) if (e >= 2) implicated.add(e >> 1);
+  };
   for (const [root, ends] of nodeEnds) {
     if (ends.length === 1) {
+      markNode(ends);
       const e = ends[0]!;
       findings.push(
         finding(
@@ -400,6 +420,7 @@ function analyseSeries(a: Analysis): number[] | null {
         ),
       );
     } else if (ends.length - (parallelExtra.get(root) ?? 0) > 2) {
+      markNode(ends);
       findings.push(
         finding(
           'circuit-branches',
@@ -451,7 +472,7 @@ function analyseSeries(a: Analysis): number[] | null {
 
   const outside: number[] = [];
   for (let k = 1; k <= n; k++) {
-    if (!visited[k] && bothEnds(a, k) && !bypassed(a, k)) outside.push(k);
+    if (!visited[k] && bothEnds(a, k) && !bypassed(a, k) && !implicated.has(k)) outside.push(k);
   }
   if (outside.length > 0) {
     const inSet = new Set(outside);
@@ -514,7 +535,8 @@ function analyseParallel(a: Analysis): void {
   // Ends on nodes other than the supply's: a series joint, or an open end.
   const offRail = [...nodeEnds].filter(([root]) => !rail(root));
   for (const [root, ends] of offRail) {
-    const fittingsHere = [...new Set(ends.filter((e) => e >= 2).map((e) => e >> 1))];
+    const fittingsHere = [...new Set(ends.map((e) => e >> 1))].filter((k) => !bypassed(a, k));
+    if (fittingsHere.length === 0) continue;
     if (fittingsHere.length >= 2) {
       findings.push(
         finding(
@@ -525,8 +547,8 @@ function analyseParallel(a: Analysis): void {
           { subject: `fitting:${fittingsHere[0]}`, values: { fittings: fittingsHere.join(',') } },
         ),
       );
-    } else if (!bypassed(a, fittingsHere[0]!)) {
-      const e = ends[0]!;
+    } else {
+      const e = ends.find((x) => x >> 1 === fittingsHere[0])!;
       findings.push(
         finding(
           'open-circuit',
