@@ -1,0 +1,65 @@
+import request from 'supertest';
+import type { Role } from '@gloaming/contracts';
+import { startMailCatcher, type MailCatcher } from '@gloaming/fakes';
+import { createFirm, openTestDatabase, type FirmFixture } from '@gloaming/db/testing';
+import { createApp, type GloamingApp } from '../src/app';
+import { loadConfig, type AppConfig } from '../src/config/env';
+import { createSmtpMailer } from '../src/mail/mailer';
+
+export interface TestServer extends GloamingApp {
+  config: AppConfig;
+  catcher: MailCatcher;
+  firmA: FirmFixture;
+  firmB: FirmFixture;
+  orm: Awaited<ReturnType<typeof openTestDatabase>>['orm'];
+  /** A supertest agent signed in as `role` of firm A (or B). Keeps its cookie. */
+  signIn(role: Role, firm?: 'A' | 'B'): Promise<ReturnType<typeof request.agent>>;
+  close(): Promise<void>;
+}
+
+const quietLogger = { info: () => {}, error: () => {} };
+
+/** createApp on a fresh temp SQLite database, two firms, and a real SMTP catcher. */
+export async function startTestServer(env: Record<string, string> = {}): Promise<TestServer> {
+  const db = await openTestDatabase();
+  const catcher = await startMailCatcher();
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    PORT: '0',
+    PUBLIC_URL: 'http://gloaming.test',
+    SMTP_PORT: String(catcher.smtpPort),
+    GLOAMING_FAKES: 'false',
+    ...env,
+  });
+  const mailer = createSmtpMailer(config.mail);
+  const built = createApp({ orm: db.orm, config, mailer, logger: quietLogger });
+  const firmA = await createFirm(db.orm.em.fork(), 'Firm A Lighting');
+  const firmB = await createFirm(db.orm.em.fork(), 'Firm B Lighting');
+  return {
+    ...built,
+    config,
+    catcher,
+    firmA,
+    firmB,
+    orm: db.orm,
+    async signIn(role, firm = 'A') {
+      const f = firm === 'A' ? firmA : firmB;
+      const agent = request.agent(built.app);
+      const res = await agent.post('/api/session').send({ email: f.users[role].email, password: f.password });
+      if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
+      return agent;
+    },
+    async close() {
+      mailer.close();
+      await catcher.close();
+      await db.close();
+    },
+  };
+}
+
+/** The token from a link in an e-mail body (`...?token=XYZ`). */
+export function tokenFromMail(text: string): string {
+  const match = /token=([A-Za-z0-9_-]+)/.exec(text);
+  if (!match) throw new Error(`no token link in: ${text}`);
+  return match[1]!;
+}

@@ -1,0 +1,115 @@
+/**
+ * The access matrix: every api route x every actor (signed out, owner, estimator, installer)
+ * x own firm's data / another firm's data. Expected statuses come from each route's declared
+ * policy; the route list comes from the Express router itself, so a route added without a
+ * policy (outside `moduleRouter`) fails here.
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ROLES, type Role } from '@gloaming/contracts';
+import type { RegisteredRoute } from '../src/http/routes';
+import { startTestServer, type TestServer } from './harness';
+
+let t: TestServer;
+beforeAll(async () => {
+  t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
+});
+afterAll(async () => t.close());
+
+interface Layer {
+  rawPath?: string;
+  route?: { path: string; methods: Record<string, boolean> };
+  handle: { stack?: Layer[] };
+}
+
+/** Every (method, full path) the Express app would route, read from its router stack. */
+function expressRoutes(stack: Layer[], prefix = ''): string[] {
+  const out: string[] = [];
+  for (const layer of stack) {
+    if (layer.route) {
+      for (const method of Object.keys(layer.route.methods)) out.push(`${method} ${join(prefix, layer.route.path)}`);
+    } else if (layer.handle.stack) {
+      out.push(...expressRoutes(layer.handle.stack, join(prefix, layer.rawPath ?? '')));
+    }
+  }
+  return out;
+}
+function join(a: string, b: string): string {
+  const s = `${a}/${b}`.replace(/\/+/g, '/');
+  return s.length > 1 ? s.replace(/\/$/, '') : s;
+}
+
+/** Ids to put in path parameters: one owned by firm A (the actor's) and one by firm B. */
+function paramsFor(route: RegisteredRoute): { own: Record<string, string>; foreign: Record<string, string> } {
+  if (route.params.length === 0) return { own: {}, foreign: {} };
+  if (route.path.startsWith('/api/users/:id'))
+    return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
+  throw new Error(`route-matrix: add fixtures for the path parameters of ${route.method.toUpperCase()} ${route.path}`);
+}
+
+function fill(path: string, params: Record<string, string>): string {
+  return path.replace(/:([A-Za-z_]+)/g, (_, name: string) => params[name] ?? `missing-${name}`);
+}
+
+type Actor = 'signed-out' | Role;
+const ACTORS: Actor[] = ['signed-out', ...ROLES];
+
+async function call(route: RegisteredRoute, actor: Actor, path: string) {
+  const agent = actor === 'signed-out' ? request.agent(t.app) : await t.signIn(actor);
+  const req = agent[route.method](path);
+  return route.method === 'get' || route.method === 'delete' ? req : req.send({});
+}
+
+describe('route x role x firm matrix', () => {
+  it('every route Express knows is registered with a policy', () => {
+    const known = expressRoutes((t.app as unknown as { router: { stack: Layer[] } }).router.stack).sort();
+    const registered = t.routes.map((r) => `${r.method} ${r.path === '/api' ? r.path : r.path.replace(/\/$/, '')}`).sort();
+    expect(known).toEqual(registered);
+    expect(registered.length).toBeGreaterThanOrEqual(10);
+  });
+
+  it('declares the policies we mean: a changed policy must be changed here too, on purpose', () => {
+    const table = Object.fromEntries(
+      t.routes.map((r) => [`${r.method.toUpperCase()} ${r.path}`, r.policy.kind === 'public' ? 'public' : r.policy.roles.join(',')]),
+    );
+    expect(table).toEqual({
+      'GET /api/health': 'public',
+      'POST /api/session': 'public',
+      'GET /api/session': 'owner,estimator,installer',
+      'DELETE /api/session': 'public',
+      'GET /api/users': 'owner',
+      'GET /api/users/:id': 'owner',
+      'POST /api/users/:id/invite': 'owner',
+      'POST /api/invites': 'owner',
+      'POST /api/invites/accept': 'public',
+      'POST /api/password-resets': 'public',
+      'POST /api/password-resets/complete': 'public',
+      'GET /api/organization': 'owner,estimator,installer',
+    });
+  });
+
+  it('answers 401 / 403 / 404 exactly where each policy says', async () => {
+    const failures: string[] = [];
+    for (const route of t.routes) {
+      const { own, foreign } = paramsFor(route);
+      for (const actor of ACTORS) {
+        const allowed = route.policy.kind === 'public' || (actor !== 'signed-out' && route.policy.roles.includes(actor));
+        const expected =
+          route.policy.kind === 'public' ? 'not 401/403' : actor === 'signed-out' ? 401 : allowed ? 'not 401/403' : 403;
+        const res = await call(route, actor, fill(route.path, own));
+        const ok = expected === 'not 401/403' ? res.status !== 401 && res.status !== 403 : res.status === expected;
+        if (!ok) failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: got ${res.status}, want ${expected}`);
+        if (res.status >= 500) failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: server error ${res.status}`);
+        if (res.status >= 400 && !String(res.headers['content-type']).includes('application/problem+json'))
+          failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: ${res.status} without problem+json`);
+
+        if (route.params.length > 0 && allowed && actor !== 'signed-out') {
+          const other = await call(route, actor, fill(route.path, foreign));
+          if (other.status !== 404)
+            failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor} with another firm's id: got ${other.status}, want 404`);
+        }
+      }
+    }
+    expect(failures).toEqual([]);
+  });
+});
