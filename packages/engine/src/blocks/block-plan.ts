@@ -284,6 +284,7 @@ function checkAssignment(input: BlockPlanInput, findings: Finding[]): number[][]
       );
     } else byId.set(id, i + 1);
   });
+  if (hasErrors(findings)) return null;
   if (!Array.isArray(assignment) || assignment.some((g) => !Array.isArray(g))) {
     findings.push(finding('assignment-malformed', 'error', 'The assignment must be a list of blocks, each a list of fitting ids.'));
     return null;
