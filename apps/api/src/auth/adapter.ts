@@ -1,5 +1,5 @@
 import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia';
-import { Session, User, type Database } from '@gloaming/db';
+import { Session, type Database } from '@gloaming/db';
 
 /**
  * Lucia's storage interface over MikroORM. Each call uses its own fork of the entity
@@ -67,6 +67,3 @@ export class MikroOrmSessionAdapter implements Adapter {
     await this.orm.em.fork().nativeDelete(Session, { expiresAt: { $lte: new Date() } });
   }
 }
-
-// Keep `User` referenced for the populate typing above.
-export type { User };
