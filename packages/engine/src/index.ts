@@ -6,6 +6,10 @@ export * from './findings';
 // -- cables, units, IP code, code profiles, series strings, driver choice (section A)
 export * from './units';
 export * from './cables';
+export * from './ip-code';
+export * from './profiles';
+export * from './series';
+export * from './drivers';
 // -- connector blocks, terminal schedule, wiring check (section B)
 export {
   blockNeeds,

@@ -1,2 +1,3 @@
 export * from './engine-input-error';
 export * from './length';
+export * from './round';

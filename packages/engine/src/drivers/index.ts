@@ -1,0 +1,3 @@
+export * from './driver-choice';
+export * from './split-run';
+export * from './drive-current-what-if';

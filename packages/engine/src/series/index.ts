@@ -1,0 +1,3 @@
+export * from './series-types';
+export * from './fitting-drive';
+export * from './series-string';

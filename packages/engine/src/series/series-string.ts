@@ -1,0 +1,485 @@
+import { conductorBase, resistanceAtTemperatureOhmPerKm, type CableSpec } from '../cables/cable-spec';
+import { finding, hasErrors, type Finding } from '../findings';
+import { checkIpForLocation, type IpOverrides } from '../ip-code/installation-location';
+import { codeProfile, type CodeProfile } from '../profiles/code-profile';
+import { isEngineInputError } from '../units/engine-input-error';
+import { lengthInMetres, type Length } from '../units/length';
+import { roundForDisplay as r2 } from '../units/round';
+import { driveAtCurrent, resolveRatings, type ResolvedRating } from './fitting-drive';
+import type {
+  CableAtCurrent,
+  CableRole,
+  FittingAtCurrent,
+  LedDriver,
+  SeriesStringInput,
+  SeriesStringResult,
+  StringLayout,
+} from './series-types';
+
+/** Default headroom below the driver's maximum, % (common practice: 10-20 %). */
+export const DEFAULT_HEADROOM_MARGIN_PCT = 10;
+/** Efficiency assumed when the driver's datasheet gives none (low end of the 85-92 % common range). */
+export const ASSUMED_DRIVER_EFFICIENCY = 0.85;
+/** Voltage comparisons allow this much floating-point slack, V. */
+export const VOLTAGE_EPSILON_V = 1e-9;
+
+interface PreparedFitting {
+  index: number;
+  id?: string;
+  subject: string;
+  constantVoltage: boolean;
+  ratings: ResolvedRating[];
+  tailLoopOhm: number;
+}
+
+interface PreparedCable {
+  subject: string;
+  role: CableRole;
+  lengthM: number;
+  loopOhm: number;
+}
+
+/** Per-current figures shared by every driver at that current. */
+export interface StringAtCurrent {
+  currentA: number;
+  forwardVoltageV: number;
+  lumens: number | null;
+  fittings: FittingAtCurrent[];
+  cables: CableAtCurrent[];
+  /** Current-mismatch findings (above rating: error; below: warning; between: info). */
+  findings: Finding[];
+  /** Largest per-fitting voltage (Vf plus its tail's drop), V, and whether all are alike. */
+  perFittingMaxV: number;
+  uniform: boolean;
+}
+
+/** A string layout checked once; evaluate it against many drivers cheaply. */
+export interface PreparedString {
+  profile: CodeProfile;
+  marginPct: number;
+  temperatureC: number;
+  ipOverrides: IpOverrides;
+  layout: StringLayout;
+  fittings: PreparedFitting[];
+  cables: PreparedCable[];
+  runsLoopOhm: number;
+  tailsLoopOhm: number;
+  layoutFindings: Finding[];
+  cache: Map<number, StringAtCurrent>;
+}
+
+function loopOhm(
+  length: Length,
+  cable: CableSpec,
+  temperatureC: number,
+  subject: string,
+  findings: Finding[],
+): { lengthM: number; loopOhm: number } {
+  try {
+    const lengthM = lengthInMetres(length, subject);
+    const perM = resistanceAtTemperatureOhmPerKm(conductorBase(cable, subject), temperatureC) / 1000;
+    return { lengthM, loopOhm: 2 * lengthM * perM };
+  } catch (e) {
+    if (!isEngineInputError(e)) throw e;
+    findings.push({ ...e.finding, subject });
+    return { lengthM: 0, loopOhm: 0 };
+  }
+}
+
+function fittingName(index: number, id?: string): string {
+  return id ? `Fitting ${index + 1} (${id})` : `Fitting ${index + 1}`;
+}
+
+/** Check everything that does not depend on the driver: ratings, cables, fitting IP codes. */
+export function prepareString(layout: StringLayout): PreparedString {
+  const profile = codeProfile(layout.profile);
+  const layoutFindings: Finding[] = [];
+  let marginPct = layout.firm?.headroomMarginPct ?? DEFAULT_HEADROOM_MARGIN_PCT;
+  if (!Number.isFinite(marginPct) || marginPct < 0 || marginPct >= 100) {
+    layoutFindings.push(
+      finding('headroom-margin-invalid', 'warning', `The firm's headroom margin must be 0-99 %; using ${DEFAULT_HEADROOM_MARGIN_PCT} %.`),
+    );
+    marginPct = DEFAULT_HEADROOM_MARGIN_PCT;
+  }
+  let temperatureC = layout.temperatureC ?? profile.dropWorkingTemperatureC;
+  if (!Number.isFinite(temperatureC) || temperatureC < -50 || temperatureC > 200) {
+    layoutFindings.push(
+      finding('cable-temperature-invalid', 'warning', `A conductor temperature must be -50 to 200 °C; using ${profile.dropWorkingTemperatureC} °C.`),
+    );
+    temperatureC = profile.dropWorkingTemperatureC;
+  }
+  const ipOverrides = layout.firm?.ipOverrides ?? {};
+  const rawFittings = Array.isArray(layout.fittings) ? layout.fittings : [];
+  if (rawFittings.length === 0) {
+    layoutFindings.push(finding('string-empty', 'error', 'The string has no fittings.', { subject: 'string' }));
+  }
+  const fittings: PreparedFitting[] = rawFittings.map((f, index) => {
+    const subject = `fitting:${index + 1}`;
+    const what = fittingName(index, f.id);
+    const { ratings, findings } = resolveRatings(f, subject, what);
+    layoutFindings.push(...findings);
+    const constantVoltage = f.drive === 'constant-voltage';
+    if (constantVoltage) {
+      layoutFindings.push(
+        finding(
+          'cv-fitting-on-cc-driver',
+          'error',
+          `${what} is a constant-voltage fitting; on a constant-current string it will not work and may be damaged. Put it on a constant-voltage supply.`,
+          { subject },
+        ),
+      );
+    }
+    layoutFindings.push(...checkIpForLocation(f.ipCode, f.location, { subject, prefix: 'fitting', overrides: ipOverrides, what }));
+    const tail = f.tail ? loopOhm(f.tail.length, f.tail.cable, temperatureC, `${subject}/tail`, layoutFindings) : { lengthM: 0, loopOhm: 0 };
+    return { index, ...(f.id === undefined ? {} : { id: f.id }), subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm };
+  });
+  const runs = Array.isArray(layout.runs) ? layout.runs : [];
+  const cables: PreparedCable[] = runs.map((run, k) => {
+    const subject = `cable:${run.id ?? `${run.role}-${k + 1}`}`;
+    const { lengthM, loopOhm: lo } = loopOhm(run.length, run.cable, temperatureC, subject, layoutFindings);
+    return { subject, role: run.role, lengthM, loopOhm: lo };
+  });
+  let runsLoopOhm = 0;
+  for (const c of cables) runsLoopOhm += c.loopOhm;
+  let tailsLoopOhm = 0;
+  for (const f of fittings) tailsLoopOhm += f.tailLoopOhm;
+  return {
+    profile,
+    marginPct,
+    temperatureC,
+    ipOverrides,
+    layout,
+    fittings,
+    cables,
+    runsLoopOhm,
+    tailsLoopOhm,
+    layoutFindings,
+    cache: new Map(),
+  };
+}
+
+/** Forward voltages, light and current-mismatch findings at one drive current (cached). */
+export function stringAtCurrent(prepared: PreparedString, currentA: number): StringAtCurrent {
+  const hit = prepared.cache.get(currentA);
+  if (hit) return hit;
+  const findings: Finding[] = [];
+  let forwardVoltageV = 0;
+  let lumens: number | null = 0;
+  let perFittingMaxV = 0;
+  let firstV: number | null = null;
+  let uniform = true;
+  const fittings: FittingAtCurrent[] = prepared.fittings.map((f) => {
+    const d = driveAtCurrent(f.ratings, currentA);
+    const what = fittingName(f.index, f.id);
+    const rated = f.ratings.map((r) => `${r2(r.currentA * 1000, 1)} mA`).join(' / ');
+    const values = { driveCurrentA: currentA, ratedCurrentsA: f.ratings.map((r) => r.currentA).join(',') };
+    if (d.status === 'above-rating') {
+      findings.push(
+        finding(
+          'current-above-rating',
+          'error',
+          `${what} is rated ${rated}; the driver's ${r2(currentA * 1000, 1)} mA will overdrive and destroy it.`,
+          { subject: f.subject, values },
+        ),
+      );
+    } else if (d.status === 'below-rating') {
+      findings.push(
+        finding(
+          'current-below-rating',
+          'warning',
+          `${what} is rated ${rated}; at the driver's ${r2(currentA * 1000, 1)} mA it runs dimmer than designed.`,
+          { subject: f.subject, values },
+        ),
+      );
+    } else if (d.status === 'between-ratings') {
+      findings.push(
+        finding(
+          'current-between-ratings',
+          'info',
+          `${what} is rated ${rated}; at ${r2(currentA * 1000, 1)} mA its forward voltage and light are interpolated.`,
+          { subject: f.subject, values },
+        ),
+      );
+    }
+    const vf = d.forwardVoltageV;
+    forwardVoltageV += vf;
+    if (lumens !== null) lumens = d.lumens === null ? null : lumens + d.lumens;
+    const tailDropV = currentA * f.tailLoopOhm;
+    const v = vf + tailDropV;
+    if (firstV === null) firstV = v;
+    else if (Math.abs(v - firstV) > 1e-9) uniform = false;
+    if (v > perFittingMaxV) perFittingMaxV = v;
+    return {
+      index: f.index,
+      ...(f.id === undefined ? {} : { id: f.id }),
+      status: d.status,
+      forwardVoltageV: vf,
+      powerW: vf * currentA,
+      lumens: d.lumens,
+      tailLoopResistanceOhm: f.tailLoopOhm,
+      tailDropV,
+    };
+  });
+  const cables: CableAtCurrent[] = prepared.cables.map((c) => ({
+    subject: c.subject,
+    role: c.role,
+    lengthM: c.lengthM,
+    loopResistanceOhm: c.loopOhm,
+    dropV: currentA * c.loopOhm,
+    lossW: currentA * currentA * c.loopOhm,
+  }));
+  const out: StringAtCurrent = {
+    currentA,
+    forwardVoltageV,
+    lumens: prepared.fittings.length === 0 ? null : lumens,
+    fittings,
+    cables,
+    findings,
+    perFittingMaxV,
+    uniform,
+  };
+  prepared.cache.set(currentA, out);
+  return out;
+}
+
+/** The driver's effective limits at its current: voltage window and power bounds. */
+export interface DriverLimits {
+  voltageMinV: number | null;
+  voltageMaxV: number | null;
+  powerMinW: number | null;
+  powerMaxW: number | null;
+}
+
+export function driverLimits(driver: LedDriver): DriverLimits {
+  const vw = driver.voltageWindowV;
+  const pw = driver.powerWindowW;
+  const maxP = driver.maxPowerW;
+  const powerMaxCandidates = [pw?.maxW, maxP].filter((x): x is number => x !== undefined);
+  return {
+    voltageMinV: vw ? vw.minV : null,
+    voltageMaxV: vw ? vw.maxV : null,
+    powerMinW: pw ? pw.minW : null,
+    powerMaxW: powerMaxCandidates.length > 0 ? Math.min(...powerMaxCandidates) : null,
+  };
+}
+
+/** Problems with the driver record itself (independent of any string). */
+export function checkDriverRecord(driver: LedDriver): Finding[] {
+  const out: Finding[] = [];
+  const bad = (msg: string): void => {
+    out.push(finding('driver-invalid', 'error', `Driver ${driver.id ?? '?'}: ${msg}`, { subject: 'driver' }));
+  };
+  if (driver === null || typeof driver !== 'object') {
+    bad('no driver given.');
+    return out;
+  }
+  if (driver.output !== 'constant-current' && driver.output !== 'constant-voltage') bad('output must be constant-current or constant-voltage.');
+  if (driver.output === 'constant-current' && (!Number.isFinite(driver.currentA) || driver.currentA <= 0)) {
+    bad('the output current must be a positive number of amps.');
+  }
+  const vw = driver.voltageWindowV;
+  if (vw && !(Number.isFinite(vw.minV) && Number.isFinite(vw.maxV) && vw.minV >= 0 && vw.maxV > vw.minV)) {
+    bad('the voltage window needs a minimum below its maximum.');
+  }
+  const pw = driver.powerWindowW;
+  if (pw && !(Number.isFinite(pw.minW) && Number.isFinite(pw.maxW) && pw.minW >= 0 && pw.maxW > pw.minW)) {
+    bad('the power window needs a minimum below its maximum.');
+  }
+  if (driver.maxPowerW !== undefined && !(Number.isFinite(driver.maxPowerW) && driver.maxPowerW > 0)) bad('maximum power must be positive.');
+  if (driver.efficiency !== undefined && !(Number.isFinite(driver.efficiency) && driver.efficiency > 0 && driver.efficiency <= 1)) {
+    bad('efficiency must be between 0 and 1 (e.g. 0.88).');
+  }
+  if (driver.output === 'constant-current' && !vw && !pw) {
+    out.push(
+      finding('driver-window-missing', 'error', `Driver ${driver.id}: no output voltage or power window is known, so it cannot be checked.`, {
+        subject: 'driver',
+      }),
+    );
+  }
+  return out;
+}
+
+/** Evaluate a prepared layout on one driver. */
+export function evaluateDriver(prepared: PreparedString, driver: LedDriver): SeriesStringResult {
+  const findings: Finding[] = [...checkDriverRecord(driver)];
+  const driverWhat = `The driver${driver?.id ? ` (${driver.id})` : ''}`;
+  const cvSupply = driver?.output === 'constant-voltage';
+  if (cvSupply) {
+    findings.push(
+      finding(
+        'cc-fitting-on-cv-supply',
+        'error',
+        `${driverWhat} is a constant-voltage supply; constant-current fittings on it are destroyed. Use a constant-current driver at the fittings' rated current.`,
+        { subject: 'driver' },
+      ),
+    );
+  }
+  const recordOk = !hasErrors(findings);
+  const fallbackA = prepared.fittings[0]?.ratings[0]?.currentA ?? 0;
+  const currentA = !cvSupply && Number.isFinite(driver?.currentA) && driver.currentA > 0 ? driver.currentA : fallbackA;
+  const at = stringAtCurrent(prepared, currentA);
+  findings.push(...prepared.layoutFindings);
+  if (!cvSupply) findings.push(...at.findings);
+  findings.push(
+    ...checkIpForLocation(driver?.ipCode, prepared.layout.driverLocation, {
+      subject: 'driver',
+      prefix: 'driver',
+      overrides: prepared.ipOverrides,
+      what: driverWhat,
+    }),
+  );
+
+  const cableLoopResistanceOhm = prepared.runsLoopOhm + prepared.tailsLoopOhm;
+  const cableDropV = currentA * cableLoopResistanceOhm;
+  const complianceVoltageV = at.forwardVoltageV + cableDropV;
+  const fittingsPowerW = at.forwardVoltageV * currentA;
+  const cableLossW = currentA * cableDropV;
+  const outputPowerW = complianceVoltageV * currentA;
+  let efficiency = driver?.efficiency ?? ASSUMED_DRIVER_EFFICIENCY;
+  if (!(efficiency > 0 && efficiency <= 1)) efficiency = ASSUMED_DRIVER_EFFICIENCY;
+  if (driver?.efficiency === undefined) {
+    findings.push(
+      finding('efficiency-assumed', 'info', `${driverWhat} has no stated efficiency; input power assumes ${ASSUMED_DRIVER_EFFICIENCY * 100} %.`, {
+        subject: 'driver',
+      }),
+    );
+  }
+  const inputPowerW = outputPowerW / efficiency;
+
+  const lim = recordOk ? driverLimits(driver) : { voltageMinV: null, voltageMaxV: null, powerMinW: null, powerMaxW: null };
+  const values = { complianceVoltageV: r2(complianceVoltageV, 3), outputPowerW: r2(outputPowerW, 3) };
+  if (recordOk && !cvSupply) {
+    if (lim.voltageMinV !== null && complianceVoltageV < lim.voltageMinV - VOLTAGE_EPSILON_V) {
+      findings.push(
+        finding(
+          'voltage-below-window',
+          'error',
+          `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} regulates only from ${lim.voltageMinV} V: the fittings may not light or will flicker. Add fittings or choose a driver with a lower window.`,
+          { subject: 'driver', values: { ...values, windowMinV: lim.voltageMinV } },
+        ),
+      );
+    }
+    if (lim.voltageMaxV !== null && complianceVoltageV > lim.voltageMaxV + VOLTAGE_EPSILON_V) {
+      findings.push(
+        finding(
+          'voltage-above-window',
+          'error',
+          `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} reaches only ${lim.voltageMaxV} V: it cannot hold the current and the fittings run dim or flicker. Split the string or choose a higher-voltage driver.`,
+          { subject: 'driver', values: { ...values, windowMaxV: lim.voltageMaxV } },
+        ),
+      );
+    }
+    if (lim.powerMinW !== null && outputPowerW < lim.powerMinW * (1 - 1e-12) - 1e-12) {
+      findings.push(
+        finding(
+          'power-below-window',
+          'error',
+          `The string draws ${r2(outputPowerW)} W, below ${driverWhat.toLowerCase()}'s minimum of ${lim.powerMinW} W.`,
+          { subject: 'driver', values: { ...values, windowMinW: lim.powerMinW } },
+        ),
+      );
+    }
+    if (lim.powerMaxW !== null && outputPowerW > lim.powerMaxW * (1 + 1e-12) + 1e-12) {
+      findings.push(
+        finding(
+          'power-above-window',
+          'error',
+          `The string draws ${r2(outputPowerW)} W, above ${driverWhat.toLowerCase()}'s maximum of ${lim.powerMaxW} W.`,
+          { subject: 'driver', values: { ...values, maxW: lim.powerMaxW } },
+        ),
+      );
+    }
+  }
+
+  // headroom: the nearer of voltage and power to the driver's maximum
+  let loading: number | null = null;
+  const vMax = lim.voltageMaxV;
+  const pMax = lim.powerMaxW;
+  if (!cvSupply && (vMax !== null || pMax !== null)) {
+    const byV = vMax !== null ? complianceVoltageV / vMax : 0;
+    const byP = pMax !== null ? outputPowerW / pMax : 0;
+    loading = Math.max(byV, byP);
+  }
+  const loadingPct = loading === null ? null : loading * 100;
+  const headroomPct = loading === null ? null : (1 - loading) * 100;
+  const upperW = vMax !== null && pMax !== null ? Math.min(vMax * currentA, pMax) : vMax !== null ? vMax * currentA : pMax;
+  const headroomW = upperW === null || cvSupply ? null : upperW - outputPowerW;
+  if (loading !== null && loading <= 1 + 1e-12 && loading > 1 - prepared.marginPct / 100 + 1e-12) {
+    findings.push(
+      finding(
+        'headroom-below-margin',
+        'warning',
+        `${driverWhat} runs at ${r2(loading * 100, 1)} % of its maximum, leaving ${r2((1 - loading) * 100, 1)} % headroom, under the firm's ${prepared.marginPct} %.`,
+        { subject: 'driver', values: { loadingPct: r2(loading * 100, 2), marginPct: prepared.marginPct } },
+      ),
+    );
+  }
+  let powerWindowPositionPct: number | null = null;
+  if (!cvSupply && lim.powerMinW !== null && lim.powerMaxW !== null && lim.powerMaxW > lim.powerMinW) {
+    powerWindowPositionPct = ((outputPowerW - lim.powerMinW) / (lim.powerMaxW - lim.powerMinW)) * 100;
+  } else if (!cvSupply && lim.voltageMinV !== null && lim.voltageMaxV !== null) {
+    powerWindowPositionPct = ((complianceVoltageV - lim.voltageMinV) / (lim.voltageMaxV - lim.voltageMinV)) * 100;
+  }
+
+  for (const limit of prepared.profile.elvLimits) {
+    if (complianceVoltageV > limit.dcMaxV + VOLTAGE_EPSILON_V) {
+      findings.push(
+        finding(
+          limit.code,
+          limit.severity,
+          `The string needs ${r2(complianceVoltageV)} V DC, above ${limit.dcMaxV} V DC (${limit.citation}): ${limit.consequence}`,
+          { subject: 'string', values: { complianceVoltageV: r2(complianceVoltageV, 3), limitV: limit.dcMaxV } },
+        ),
+      );
+    }
+  }
+
+  // the largest number of these fittings the driver can take
+  let maxFittings: number | null = null;
+  let maxFittingsWithinMargin: number | null = null;
+  let maxFittingsBasis: SeriesStringResult['maxFittingsBasis'] = null;
+  const upperV = upperW === null || currentA <= 0 ? null : upperW / currentA;
+  if (!cvSupply && upperV !== null && at.perFittingMaxV > 0) {
+    const fixedV = currentA * prepared.runsLoopOhm;
+    const per = at.perFittingMaxV;
+    maxFittings = Math.max(0, Math.floor((upperV - fixedV + VOLTAGE_EPSILON_V) / per));
+    maxFittingsWithinMargin = Math.max(0, Math.floor((upperV * (1 - prepared.marginPct / 100) - fixedV + VOLTAGE_EPSILON_V) / per));
+    maxFittingsBasis = at.uniform ? 'uniform' : 'largest-fitting';
+  }
+
+  return {
+    driverId: driver?.id ?? '',
+    currentA,
+    fittingCount: prepared.fittings.length,
+    stringForwardVoltageV: at.forwardVoltageV,
+    cableLoopResistanceOhm,
+    cableDropV,
+    complianceVoltageV,
+    fittingsPowerW,
+    cableLossW,
+    outputPowerW,
+    efficiency,
+    inputPowerW,
+    loadingPct,
+    powerWindowPositionPct,
+    headroomPct,
+    headroomW,
+    lumens: at.lumens,
+    maxFittings,
+    maxFittingsWithinMargin,
+    maxFittingsBasis,
+    fittings: at.fittings,
+    cables: at.cables,
+    findings,
+    ok: !hasErrors(findings),
+  };
+}
+
+/**
+ * Check a constant-current series string on its driver: voltages, cable drop and loss,
+ * power, headroom, the most fittings it can take, and every finding. Never throws on bad
+ * input; problems come back as findings.
+ */
+export function checkSeriesString(input: SeriesStringInput): SeriesStringResult {
+  return evaluateDriver(prepareString(input), input.driver);
+}
