@@ -45,3 +45,4 @@ export {
 } from './wiring/terminal-schedule';
 export { checkWiring, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
 // -- constant-voltage runs, takeoff, labour, money (section C)
+export * from './money';

@@ -1,0 +1,323 @@
+/**
+ * Quote totals: every line's amount, discounts, VAT per rate, total, cost, gross margin and
+ * deposit, all in integer minor units. Order of work:
+ * 1. gross = quantity (thousandths) x unit price, rounded half-up to a whole minor unit;
+ * 2. line discount (percentage, rounded half-up; or fixed, capped at the gross);
+ * 3. quote discount (percentage of the included lines, rounded half-up; or fixed, capped),
+ *    shared across the included lines in proportion to their amounts by largest remainder,
+ *    so VAT is charged on the discounted price and the shares add up to the discount;
+ * 4. VAT by the firm's rounding (see vat.ts);
+ * 5. deposit (percentage of the total, rounded half-up; or fixed, capped) and the balance.
+ * Optional lines count only when selected; of each pick-one group exactly one should be
+ * selected. Lines that are not counted still show their own amounts so an estimator or
+ * homeowner can see what an option would add.
+ */
+import { finding, type Finding } from '../findings';
+import { allocateMinor } from './allocate';
+import { assertNonNegativeInteger, MoneyInputError } from './integer-math';
+import { extendMinor } from './quantity';
+import { applyBasisPoints, BASIS_POINTS, marginOf } from './rates';
+import { lineVatTenths, vatByRate, VAT_ROUNDINGS, type VatRateTotal, type VatRounding } from './vat';
+
+export type Discount = { kind: 'percent'; bp: number } | { kind: 'fixed'; amountMinor: number };
+export type Deposit = { kind: 'percent'; bp: number } | { kind: 'fixed'; amountMinor: number };
+
+export interface QuoteLineInput {
+  /** Unique within the quote. */
+  id: string;
+  /** Exact quantity in thousandths: 12.5 m -> 12500, 3 fittings -> 3000. */
+  quantityMilli: number;
+  /** Sell price per unit ex VAT, minor units. */
+  unitPriceMinor: number;
+  /** Cost per unit, minor units; missing costs count as zero (and are reported). */
+  unitCostMinor?: number;
+  /** VAT rate in basis points: 2000 = 20 %. */
+  vatRateBp: number;
+  discount?: Discount;
+  /** An optional extra: counted only when `selected` is true. */
+  optional?: boolean;
+  /** A pick-one group: of the lines sharing this key exactly one should be `selected`. */
+  alternativeGroup?: string;
+  /** For optional lines and alternatives: picked or not. Ignored on ordinary lines. */
+  selected?: boolean;
+}
+
+export interface QuoteInput {
+  lines: readonly QuoteLineInput[];
+  /** The firm's VAT rounding choice (HMRC VAT Notice 700 §17.5). */
+  vatRounding: VatRounding;
+  /** A discount on the whole quote. */
+  discount?: Discount;
+  /** Deposit asked on acceptance, of the total including VAT. */
+  deposit?: Deposit;
+}
+
+export interface QuoteLineTotal {
+  id: string;
+  /** Counted in the totals (ordinary lines, selected optional lines, chosen alternatives). */
+  included: boolean;
+  grossMinor: number;
+  lineDiscountMinor: number;
+  /** This line's share of the quote discount; 0 when not included. */
+  quoteDiscountMinor: number;
+  /** Ex VAT after both discounts. */
+  netMinor: number;
+  vatRateBp: number;
+  /** VAT on this line in tenths of a minor unit as the line rounding gives it; null in
+   * invoice-level rounding and for lines not included. */
+  vatTenths: number | null;
+  costMinor: number;
+  marginMinor: number;
+}
+
+export interface DepositSplit {
+  depositMinor: number;
+  balanceMinor: number;
+}
+
+export interface QuoteTotals {
+  lines: QuoteLineTotal[];
+  /** Sum of the included lines' gross amounts. */
+  grossMinor: number;
+  lineDiscountMinor: number;
+  quoteDiscountMinor: number;
+  /** Total ex VAT. */
+  netMinor: number;
+  /** Highest rate first; adds up to `vatMinor`. */
+  vatByRate: VatRateTotal[];
+  vatMinor: number;
+  /** netMinor + vatMinor. */
+  totalMinor: number;
+  costMinor: number;
+  /** netMinor - costMinor. */
+  grossMarginMinor: number;
+  /** Gross margin as basis points of the net; null when the net is zero. */
+  grossMarginBp: number | null;
+  deposit: DepositSplit | null;
+  findings: Finding[];
+}
+
+const isCount = (v: unknown): v is number => typeof v === 'number' && Number.isSafeInteger(v) && v >= 0;
+
+/** Validate a discount or deposit; field names are only built when something is wrong. */
+function checkDiscount(d: Discount, field: () => string): void {
+  if (d.kind === 'percent') {
+    if (!isCount(d.bp)) assertNonNegativeInteger(d.bp, `${field()}.bp`);
+    if (d.bp > BASIS_POINTS) {
+      throw new MoneyInputError('percent-over-100', `${field()}.bp`, `${field()} cannot be more than 100 %; got ${d.bp / 100} %.`);
+    }
+  } else if (d.kind === 'fixed') {
+    if (!isCount(d.amountMinor)) assertNonNegativeInteger(d.amountMinor, `${field()}.amountMinor`);
+  } else {
+    throw new MoneyInputError('bad-kind', `${field()}.kind`, `${field()}.kind must be "percent" or "fixed".`);
+  }
+}
+
+/** Amount a discount or deposit takes off `baseMinor`; `capped` when a fixed one was larger. */
+function takeFrom(baseMinor: number, d: Discount | Deposit): { amountMinor: number; capped: boolean } {
+  if (d.kind === 'percent') return { amountMinor: applyBasisPoints(baseMinor, d.bp, 'half-up'), capped: false };
+  return d.amountMinor > baseMinor ? { amountMinor: baseMinor, capped: true } : { amountMinor: d.amountMinor, capped: false };
+}
+
+/** Everything a quote adds up to. Throws MoneyInputError for malformed input. */
+export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
+  const { lines, vatRounding } = input;
+  if (!VAT_ROUNDINGS.includes(vatRounding)) {
+    throw new MoneyInputError('bad-vat-rounding', 'vatRounding', `vatRounding must be one of ${VAT_ROUNDINGS.join(', ')}.`);
+  }
+  if (input.discount) checkDiscount(input.discount, () => 'discount');
+  if (input.deposit) checkDiscount(input.deposit, () => 'deposit');
+  const findings: Finding[] = [];
+  const n = lines.length;
+  const ids = new Set<string>();
+  const groups = new Map<string, number[]>();
+  const out: QuoteLineTotal[] = [];
+  let missingCost = 0;
+
+  for (let i = 0; i < n; i++) {
+    const line = lines[i]!;
+    if (typeof line.id !== 'string' || line.id === '') {
+      throw new MoneyInputError('missing-id', `lines[${i}].id`, `lines[${i}] needs an id.`);
+    }
+    if (ids.has(line.id)) throw new MoneyInputError('duplicate-id', `lines[${i}].id`, `Line id "${line.id}" is used twice.`);
+    ids.add(line.id);
+    if (!isCount(line.quantityMilli)) assertNonNegativeInteger(line.quantityMilli, `lines[${i}].quantityMilli`);
+    if (!isCount(line.unitPriceMinor)) assertNonNegativeInteger(line.unitPriceMinor, `lines[${i}].unitPriceMinor`);
+    if (!isCount(line.vatRateBp)) assertNonNegativeInteger(line.vatRateBp, `lines[${i}].vatRateBp`);
+    if (line.vatRateBp > BASIS_POINTS) {
+      throw new MoneyInputError('percent-over-100', `lines[${i}].vatRateBp`, `lines[${i}] has a VAT rate over 100 %.`);
+    }
+    if (line.unitCostMinor === undefined) missingCost++;
+    else if (!isCount(line.unitCostMinor)) assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
+    if (line.discount) checkDiscount(line.discount, () => `lines[${i}].discount`);
+    if (line.optional && line.alternativeGroup !== undefined) {
+      throw new MoneyInputError(
+        'optional-and-alternative',
+        `lines[${i}]`,
+        `Line "${line.id}" is both optional and part of a pick-one group; make it one or the other.`,
+      );
+    }
+
+    const grossMinor = extendMinor(line.quantityMilli, line.unitPriceMinor, 'half-up');
+    let lineDiscountMinor = 0;
+    if (line.discount) {
+      const t = takeFrom(grossMinor, line.discount);
+      lineDiscountMinor = t.amountMinor;
+      if (t.capped) {
+        findings.push(
+          finding('line-discount-capped', 'warning', `The discount on line "${line.id}" is more than the line; it has been limited to the line amount.`, {
+            subject: `line:${line.id}`,
+            values: { discountMinor: line.discount.kind === 'fixed' ? line.discount.amountMinor : 0, grossMinor },
+          }),
+        );
+      }
+    }
+    const costMinor = line.unitCostMinor === undefined ? 0 : extendMinor(line.quantityMilli, line.unitCostMinor, 'half-up');
+    const netMinor = grossMinor - lineDiscountMinor;
+    let included = true;
+    if (line.alternativeGroup !== undefined) {
+      const g = groups.get(line.alternativeGroup);
+      if (g) g.push(i);
+      else groups.set(line.alternativeGroup, [i]);
+      included = line.selected === true;
+    } else if (line.optional) {
+      included = line.selected === true;
+    }
+    out.push({
+      id: line.id,
+      included,
+      grossMinor,
+      lineDiscountMinor,
+      quoteDiscountMinor: 0,
+      netMinor,
+      vatRateBp: line.vatRateBp,
+      vatTenths: null,
+      costMinor,
+      marginMinor: netMinor - costMinor,
+    });
+  }
+
+  for (const [group, members] of groups) {
+    const chosen = members.filter((i) => out[i]!.included);
+    if (chosen.length === 0) {
+      findings.push(
+        finding('alternative-none-chosen', 'error', `Pick one of the alternatives in "${group}"; none is chosen, so the group adds nothing yet.`, {
+          subject: `group:${group}`,
+          values: { alternatives: members.length },
+        }),
+      );
+    } else if (chosen.length > 1) {
+      for (const i of chosen.slice(1)) out[i]!.included = false;
+      findings.push(
+        finding('alternative-several-chosen', 'error', `Only one alternative in "${group}" can be chosen; ${chosen.length} are. Only the first ("${out[chosen[0]!]!.id}") is counted.`, {
+          subject: `group:${group}`,
+          values: { chosen: chosen.length },
+        }),
+      );
+    }
+  }
+
+  // Sums of the included lines before the quote discount.
+  let grossSum = 0;
+  let lineDiscountSum = 0;
+  let preQuoteNet = 0;
+  const includedIdx: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const t = out[i]!;
+    if (!t.included) continue;
+    includedIdx.push(i);
+    grossSum += t.grossMinor;
+    lineDiscountSum += t.lineDiscountMinor;
+    preQuoteNet += t.netMinor;
+  }
+  if (!Number.isSafeInteger(grossSum)) {
+    throw new MoneyInputError('result-out-of-range', 'lines', 'The quote adds up to more than can be held exactly.');
+  }
+
+  let quoteDiscountMinor = 0;
+  if (input.discount) {
+    const t = takeFrom(preQuoteNet, input.discount);
+    quoteDiscountMinor = t.amountMinor;
+    if (t.capped) {
+      findings.push(
+        finding('quote-discount-capped', 'warning', 'The discount on the quote is more than the quote; it has been limited to the quote amount.', {
+          subject: 'quote',
+          values: { netBeforeDiscountMinor: preQuoteNet },
+        }),
+      );
+    }
+    if (quoteDiscountMinor > 0) {
+      const shares = allocateMinor(
+        quoteDiscountMinor,
+        includedIdx.map((i) => out[i]!.netMinor),
+      );
+      for (let k = 0; k < includedIdx.length; k++) {
+        const t = out[includedIdx[k]!]!;
+        t.quoteDiscountMinor = shares[k]!;
+        t.netMinor -= shares[k]!;
+        t.marginMinor = t.netMinor - t.costMinor;
+      }
+    }
+  }
+
+  const rates = new Map<number, { netMinor: number; vatTenths: number }>();
+  let netMinor = 0;
+  let costMinor = 0;
+  for (const i of includedIdx) {
+    const t = out[i]!;
+    t.vatTenths = lineVatTenths(t.netMinor, t.vatRateBp, vatRounding);
+    let r = rates.get(t.vatRateBp);
+    if (!r) {
+      r = { netMinor: 0, vatTenths: 0 };
+      rates.set(t.vatRateBp, r);
+    }
+    r.netMinor += t.netMinor;
+    r.vatTenths += t.vatTenths ?? 0;
+    netMinor += t.netMinor;
+    costMinor += t.costMinor;
+  }
+  const vat = vatByRate(rates, vatRounding);
+  const totalMinor = netMinor + vat.vatMinor;
+  if (!Number.isSafeInteger(totalMinor) || !Number.isSafeInteger(costMinor)) {
+    throw new MoneyInputError('result-out-of-range', 'lines', 'The quote adds up to more than can be held exactly.');
+  }
+
+  let deposit: DepositSplit | null = null;
+  if (input.deposit) {
+    const t = takeFrom(totalMinor, input.deposit);
+    if (t.capped) {
+      findings.push(
+        finding('deposit-capped', 'warning', 'The deposit asked is more than the quote total; it has been limited to the total.', {
+          subject: 'deposit',
+          values: { totalMinor },
+        }),
+      );
+    }
+    deposit = { depositMinor: t.amountMinor, balanceMinor: totalMinor - t.amountMinor };
+  }
+
+  if (missingCost > 0) {
+    findings.push(
+      finding('cost-missing', 'info', `${missingCost} line(s) have no cost, so the gross margin counts them as costing nothing.`, {
+        subject: 'quote',
+        values: { lines: missingCost },
+      }),
+    );
+  }
+
+  return {
+    lines: out,
+    grossMinor: grossSum,
+    lineDiscountMinor: lineDiscountSum,
+    quoteDiscountMinor,
+    netMinor,
+    vatByRate: vat.byRate,
+    vatMinor: vat.vatMinor,
+    totalMinor,
+    costMinor,
+    grossMarginMinor: netMinor - costMinor,
+    grossMarginBp: marginOf(netMinor, costMinor),
+    deposit,
+    findings,
+  };
+}
