@@ -1,0 +1,81 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
+
+export interface RunningServer {
+  baseUrl: string;
+  inboxUrl: string;
+  dataDir: string;
+  output: () => string;
+  stop: () => Promise<void>;
+}
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolvePort, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const address = s.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      s.close(() => resolvePort(port));
+    });
+  });
+}
+
+/**
+ * Start the real built server (`node apps/api/dist/main.js`, as `npm start` does) on a
+ * random port with a fresh DATA_DIR, so it migrates and seeds a new demo database.
+ */
+export async function startBuiltServer(env: Record<string, string> = {}): Promise<RunningServer> {
+  const dataDir = mkdtempSync(join(tmpdir(), 'gloaming-e2e-'));
+  const [port, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
+  let out = '';
+  const child: ChildProcess = spawn(process.execPath, [join(repoRoot, 'apps/api/dist/main.js')], {
+    cwd: repoRoot,
+    env: {
+      ...process.env,
+      NODE_ENV: 'development',
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      GLOAMING_SMTP_CATCHER_PORT: String(smtpPort),
+      GLOAMING_INBOX_PORT: String(inboxPort),
+      ...env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout?.on('data', (d: Buffer) => (out += d.toString()));
+  child.stderr?.on('data', (d: Buffer) => (out += d.toString()));
+  const baseUrl = `http://localhost:${port}`;
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${out}`);
+    try {
+      const res = await fetch(`${baseUrl}/api/health`);
+      if (res.ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) throw new Error(`server did not become healthy in 30 s:\n${out}`);
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  return {
+    baseUrl,
+    inboxUrl: `http://127.0.0.1:${inboxPort}`,
+    dataDir,
+    output: () => out,
+    stop: async () => {
+      if (child.exitCode === null) {
+        const exited = new Promise((r) => child.once('exit', r));
+        child.kill('SIGTERM');
+        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+        if (child.exitCode === null) child.kill('SIGKILL');
+      }
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
