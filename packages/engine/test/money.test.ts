@@ -22,6 +22,7 @@ import {
   type QuoteLineInput,
   type VatRounding,
 } from '../src/money';
+import { isEngineInputError } from '../src/units/engine-input-error';
 
 const line = (id: string, over: Partial<QuoteLineInput> = {}): QuoteLineInput => ({
   id,
@@ -231,6 +232,16 @@ describe('discounts, options, alternatives, deposit', () => {
     expect(bad({ optional: true, alternativeGroup: 'g' })).toThrow(/one or the other/);
     expect(() => computeQuoteTotals({ lines: [line('a'), line('a')], vatRounding: 'line-nearest-1p' })).toThrow(/used twice/);
     expect(() => computeQuoteTotals({ lines: [], vatRounding: 'nearest' as VatRounding })).toThrow(MoneyInputError);
+  });
+
+  it('its errors are EngineInputErrors carrying an error finding for the field', () => {
+    try {
+      computeQuoteTotals({ lines: [line('a', { vatRateBp: 20.5 })], vatRounding: 'line-nearest-1p' });
+      expect.unreachable();
+    } catch (e) {
+      expect(isEngineInputError(e)).toBe(true);
+      expect((e as MoneyInputError).finding).toMatchObject({ code: 'not-safe-integer', severity: 'error', subject: 'lines[0].vatRateBp' });
+    }
   });
 
   it('reports lines without a cost', () => {

@@ -5,6 +5,8 @@
  * final result that does not fit a safe integer is refused (about £90 trillion in pence).
  */
 
+import { EngineInputError } from '../units/engine-input-error';
+
 /**
  * How to round a quotient to an integer.
  * - `half-up`: to nearest, halves away from zero (HMRC's "nearest", 86.5p -> 87p).
@@ -14,14 +16,17 @@
  */
 export type IntegerRounding = 'half-up' | 'half-even' | 'down' | 'up';
 
-/** Thrown for amounts, rates or quantities that are not what the money API accepts. */
-export class MoneyInputError extends RangeError {
-  /** Stable machine code, e.g. `not-safe-integer`. */
+/**
+ * Thrown for amounts, rates or quantities that are not what the money API accepts. It is an
+ * EngineInputError, so it carries a ready-made error finding (its subject is the field).
+ */
+export class MoneyInputError extends EngineInputError {
+  /** Stable machine code, e.g. `not-safe-integer` (the same as `finding.code`). */
   readonly code: string;
   /** Which input was wrong, e.g. `lines[3].unitPriceMinor`. */
   readonly field: string;
   constructor(code: string, field: string, message: string) {
-    super(message);
+    super(code, message, { subject: field });
     this.name = 'MoneyInputError';
     this.code = code;
     this.field = field;
