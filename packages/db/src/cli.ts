@@ -49,7 +49,8 @@ async function main(command: string | undefined): Promise<void> {
     case 'create-migration': {
       const orm = await openDatabase({ file: ':memory:' });
       await migrate(orm);
-      const result = await orm.getMigrator().createMigration(undefined, false, false, process.argv[3]);
+      const name = process.argv[3]?.replace(/\W+/g, '_');
+      const result = await orm.getMigrator().createMigration(undefined, false, false, name);
       if (result.fileName) registerMigration(result.fileName);
       console.log(result.fileName ? `Wrote and registered ${result.fileName}.` : 'No changes.');
       await orm.close();

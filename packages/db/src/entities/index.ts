@@ -2,11 +2,46 @@ export { Organization } from './organization';
 export { User, ROLES, type Role } from './user';
 export { Session } from './session';
 export { AuthToken, AUTH_TOKEN_PURPOSES, type AuthTokenPurpose } from './auth-token';
+export { Customer } from './customer';
+export { Site } from './site';
+export { Product, PRODUCT_KINDS, type ProductKind } from './product';
+export { ImportMapping } from './import-mapping';
+export { ImportJob, IMPORT_JOB_STATES, type ImportJobState } from './import-job';
+export { Quote, QUOTE_STATUSES, type QuoteStatus } from './quote';
+export { QuoteRevision, REVISION_STATES, type RevisionState } from './quote-revision';
+export { QuoteEvent } from './quote-event';
+export { Photo } from './photo';
+export { PortalToken } from './portal-token';
 
 import { AuthToken } from './auth-token';
+import { Customer } from './customer';
+import { ImportJob } from './import-job';
+import { ImportMapping } from './import-mapping';
 import { Organization } from './organization';
+import { Photo } from './photo';
+import { PortalToken } from './portal-token';
+import { Product } from './product';
+import { Quote } from './quote';
+import { QuoteEvent } from './quote-event';
+import { QuoteRevision } from './quote-revision';
 import { Session } from './session';
+import { Site } from './site';
 import { User } from './user';
 
 /** Every entity, for the ORM config. Add new entities here. */
-export const entities = [Organization, User, Session, AuthToken];
+export const entities = [
+  Organization,
+  User,
+  Session,
+  AuthToken,
+  Customer,
+  Site,
+  Product,
+  ImportMapping,
+  ImportJob,
+  Quote,
+  QuoteRevision,
+  QuoteEvent,
+  Photo,
+  PortalToken,
+];

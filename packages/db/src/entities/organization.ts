@@ -21,6 +21,9 @@ export const Organization = defineEntity({
     depositPercentBp: p.integer().default(3000),
     markupPercentBp: p.integer().default(3500),
     labourRateMinorPerHour: p.integer().default(4500),
+    /** HMRC Notice 700 §17.5 rounding choice, as the engine names it (e.g. 'line-nearest-1p'). */
+    vatRounding: p.string().default('line-nearest-1p'),
+    quoteValidityDays: p.integer().default(30),
     termsText: p.text().default(''),
     logoPath: p.string().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
