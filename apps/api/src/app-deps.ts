@@ -2,6 +2,7 @@ import type { Database } from '@gloaming/db';
 import type { Auth } from './auth/lucia';
 import type { AppConfig } from './config/env';
 import type { Mailer } from './mail/mailer';
+import type { FileStorage } from './storage/storage';
 
 export interface Logger {
   info(msg: string): void;
@@ -14,6 +15,8 @@ export interface AppDeps {
   config: AppConfig;
   mailer: Mailer;
   logger?: Logger;
+  /** Uploaded files; defaults to DATA_DIR/files. */
+  storage?: FileStorage;
 }
 
 /** What modules receive when they build their routers. */

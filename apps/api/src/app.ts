@@ -7,6 +7,7 @@ import { checkOrigin, loadSession } from './auth/middleware';
 import { apiNotFound, errorHandler } from './http/problem';
 import type { RegisteredRoute } from './http/routes';
 import { staticApp } from './http/static-apps';
+import { LocalFileStorage } from './storage/storage';
 import { healthRouter } from './modules/health/router';
 import { organizationRouter } from './modules/organization/router';
 import { passwordResetRouter } from './modules/password-resets/router';
@@ -32,7 +33,12 @@ const consoleLogger: Logger = {
 /** Build the Express app. Never listens; `main.ts` does. */
 export function createApp(options: CreateAppOptions): GloamingApp {
   const logger = options.logger ?? consoleLogger;
-  const deps: ModuleDeps = { ...options, logger, auth: createLucia(options.orm, options.config.secureCookies) };
+  const deps: ModuleDeps = {
+    ...options,
+    logger,
+    storage: options.storage ?? new LocalFileStorage(options.config.dataDir),
+    auth: createLucia(options.orm, options.config.secureCookies),
+  };
   const routes: RegisteredRoute[] = [];
   const app = express();
 
