@@ -39,9 +39,9 @@ export function LandingPage() {
       </header>
 
       <main id="main">
-        <section aria-labelledby="intro-title" className="on-dark relative overflow-hidden bg-dusk-900">
+        <section aria-labelledby="intro-title" className="on-dark relative overflow-hidden bg-dusk-900 bg-[radial-gradient(ellipse_at_85%_120%,rgb(245_168_58/0.3),transparent_55%)]">
           <Glow />
-          <div className="relative mx-auto max-w-5xl px-5 pt-12 pb-16 sm:px-8 sm:pt-20 sm:pb-24">
+          <div className="relative mx-auto max-w-5xl px-5 pt-12 pb-28 sm:px-8 sm:pt-20 sm:pb-28">
             <p className="text-caption font-semibold tracking-wide text-lamp-300 uppercase">For homeowners</p>
             <h1 id="intro-title" className="mt-3 max-w-2xl text-title font-semibold tracking-tight text-white sm:text-display">
               Your garden lighting quote arrives as a personal link
@@ -121,31 +121,32 @@ function Mark() {
   );
 }
 
-/** Warm light rising from the bottom edge of the intro, like a lit path at dusk. Decorative. */
+/** Three path lights on the lawn edge, bottom right of the intro. Decorative. */
 function Glow() {
+  const lights = [
+    { x: 60, y: 150, s: 1 },
+    { x: 150, y: 128, s: 0.8 },
+    { x: 222, y: 112, s: 0.64 },
+  ];
   return (
     <svg
-      viewBox="0 0 400 200"
-      preserveAspectRatio="xMidYMax slice"
-      className="pointer-events-none absolute inset-0 size-full"
+      viewBox="0 0 280 180"
+      className="pointer-events-none absolute right-0 bottom-0 h-32 w-auto sm:h-48"
       aria-hidden="true"
     >
       <defs>
-        <radialGradient id="portal-glow" cx="50%" cy="100%" r="60%">
-          <stop offset="0" stopColor="#f5a83a" stopOpacity="0.35" />
+        <radialGradient id="portal-pool" cx="50%" cy="50%" r="50%">
+          <stop offset="0" stopColor="#ffd899" stopOpacity="0.7" />
+          <stop offset="0.5" stopColor="#f5a83a" stopOpacity="0.25" />
           <stop offset="1" stopColor="#f5a83a" stopOpacity="0" />
         </radialGradient>
       </defs>
-      <rect width="400" height="200" fill="url(#portal-glow)" transform="translate(120 0)" />
-      {[
-        [300, 186, 1],
-        [336, 178, 0.8],
-        [366, 172, 0.65],
-      ].map(([x, y, s]) => (
+      {lights.map(({ x, y, s }) => (
         <g key={x} transform={`translate(${x} ${y}) scale(${s})`}>
-          <ellipse cx="0" cy="10" rx="22" ry="6" fill="#ffd899" opacity="0.35" />
-          <rect x="-1.2" y="-14" width="2.4" height="24" fill="#0b1024" />
-          <rect x="-4.5" y="-16" width="9" height="3" rx="1" fill="#ffd899" />
+          <ellipse cx="0" cy="22" rx="58" ry="18" fill="url(#portal-pool)" />
+          <rect x="-2.5" y="-24" width="5" height="46" rx="2" fill="#0b1024" />
+          <path d="M-10 -24h20l-4-8h-12z" fill="#0b1024" />
+          <rect x="-7" y="-24" width="14" height="4.5" rx="1.5" fill="#ffd899" />
         </g>
       ))}
     </svg>

@@ -29,6 +29,8 @@ export function fromSchemaIssues<Field extends string>(
 export function fromRequestError<Field extends string>(
   error: unknown,
   fields: ReadonlyArray<Field>,
+  /** Titles for the form message by status, where a form knows better words than the server's. */
+  titles: Partial<Record<number, string>> = {},
 ): FormErrors<Field> {
   if (!isApiError(error)) {
     return { fields: {}, form: { title: 'Something went wrong', detail: 'Try again in a moment.' } };
@@ -40,7 +42,7 @@ export function fromRequestError<Field extends string>(
   }
   const unplaced = error.fieldErrors.some((fieldError) => !fields.some((field) => fieldError.path === field || fieldError.path.endsWith(`.${field}`)));
   if (error.fieldErrors.length === 0 || unplaced) {
-    result.form = { title: titleFor(error.status, error.title), detail: error.detail };
+    result.form = { title: titles[error.status] ?? titleFor(error.status, error.title), detail: error.detail };
   }
   return result;
 }

@@ -27,7 +27,7 @@ export function FormMessage({
   return (
     <div role={tone === 'error' ? 'alert' : 'status'} data-testid={testId}>
       {hasMessage ? (
-        <div className={`flex gap-3 rounded-control px-4 py-3 text-caption ring-1 ring-inset ${TONE_CLASSES[tone]}`}>
+        <div className={`mb-5 flex gap-3 rounded-control px-4 py-3 text-caption ring-1 ring-inset ${TONE_CLASSES[tone]}`}>
           <ToneIcon tone={tone} />
           <div className="flex flex-col gap-0.5">
             {title ? <p className="font-semibold">{title}</p> : null}

@@ -34,10 +34,11 @@ export function ForgotPasswordPage() {
         {request.data?.message}
       </FormMessage>
       {request.isSuccess ? null : (
-        <form noValidate onSubmit={handleSubmit} className="flex flex-col gap-5" aria-label="Reset your password">
+        <form noValidate onSubmit={handleSubmit} aria-label="Reset your password">
           <FormMessage tone="error" title={errors.form?.title}>
             {errors.form?.detail}
           </FormMessage>
+          <div className="flex flex-col gap-5">
           <TextField
             label="E-mail"
             name="email"
@@ -50,6 +51,7 @@ export function ForgotPasswordPage() {
           <Button type="submit" fullWidth busy={request.isPending}>
             Send reset link
           </Button>
+          </div>
         </form>
       )}
       <p className="mt-8 text-caption text-ink-muted">

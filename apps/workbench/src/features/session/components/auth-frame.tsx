@@ -8,6 +8,7 @@ export function AuthFrame({ title, intro, children }: { title: string; intro?: R
     <div className="grid min-h-screen bg-canvas lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
       <aside className="on-dark relative hidden overflow-hidden bg-dusk-900 lg:block">
         <DuskGarden className="absolute inset-0 size-full" />
+        <div className="absolute inset-x-0 bottom-0 h-2/5 bg-linear-to-t from-dusk-950 via-dusk-950/80 to-transparent" />
         <div className="relative flex h-full flex-col justify-between p-12">
           <Wordmark tone="light" />
           <div className="max-w-sm pb-4">

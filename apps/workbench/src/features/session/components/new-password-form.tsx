@@ -37,10 +37,11 @@ export function NewPasswordForm({
   }
 
   return (
-    <form noValidate onSubmit={handleSubmit} className="flex flex-col gap-5" aria-label={label}>
+    <form noValidate onSubmit={handleSubmit} aria-label={label}>
       <FormMessage tone="error" title={errors.form?.title}>
         {errors.form?.detail}
       </FormMessage>
+      <div className="flex flex-col gap-5">
       <TextField
         label="New password"
         name="password"
@@ -61,6 +62,7 @@ export function NewPasswordForm({
       <Button type="submit" fullWidth busy={busy}>
         {submitLabel}
       </Button>
+      </div>
     </form>
   );
 }

@@ -10,6 +10,8 @@ import { useSignIn } from '../api/sign-in';
 const FIELDS = ['email', 'password'] as const;
 type Field = (typeof FIELDS)[number];
 
+const SIGN_IN_TITLES = { 401: 'Could not sign you in', 429: 'Sign-in paused' };
+
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
   const signIn = useSignIn();
   const [errors, setErrors] = useState<FormErrors<Field>>({ fields: {} });
@@ -25,15 +27,16 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
     setErrors({ fields: {} });
     signIn.mutate(parsed.data, {
       onSuccess: onSignedIn,
-      onError: (error) => setErrors(fromRequestError(error, FIELDS)),
+      onError: (error) => setErrors(fromRequestError(error, FIELDS, SIGN_IN_TITLES)),
     });
   }
 
   return (
-    <form noValidate onSubmit={handleSubmit} className="flex flex-col gap-5" aria-label="Sign in">
+    <form noValidate onSubmit={handleSubmit} aria-label="Sign in">
       <FormMessage tone="error" title={errors.form?.title} testId="sign-in-message">
         {errors.form?.detail}
       </FormMessage>
+      <div className="flex flex-col gap-5">
       <TextField
         label="E-mail"
         name="email"
@@ -60,6 +63,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
       <Button type="submit" fullWidth busy={signIn.isPending} className="mt-1">
         {signIn.isPending ? 'Signing in…' : 'Sign in'}
       </Button>
+      </div>
     </form>
   );
 }

@@ -1,9 +1,9 @@
 import type { ScreenPath } from '../screens';
 
 const PATHS: Record<ScreenPath, string> = {
-  '/overview': 'M3 10.5 10 4l7 6.5M5 9v7h3.5v-4h3v4H15V9',
+  '/overview': 'M3.5 3.5h5v5h-5zM11.5 3.5h5v5h-5zM3.5 11.5h5v5h-5zM11.5 11.5h5v5h-5z',
   '/quotes': 'M6 3h6l4 4v10H6zM12 3v4h4M8.5 10.5h5M8.5 13.5h5',
-  '/jobs': 'M3 16h14M5.5 16V9l4.5-3 4.5 3v7M8.5 16v-3.5h3V16',
+  '/jobs': 'M7 3.5h6v2.5H7zM7 4.75H4.5v12h11v-12H13M7.5 11l2 2 3.5-4',
 };
 
 export function NavIcon({ screen }: { screen: ScreenPath }) {

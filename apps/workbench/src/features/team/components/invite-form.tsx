@@ -46,13 +46,14 @@ export function InviteForm() {
   }
 
   return (
-    <form ref={formRef} noValidate onSubmit={handleSubmit} className="flex flex-col gap-4" aria-label="Invite a team member">
+    <form ref={formRef} noValidate onSubmit={handleSubmit} aria-label="Invite a team member">
       <FormMessage tone="success" title="Invitation sent">
         {sentTo ? `${sentTo} will get an e-mail with a link to set a password.` : null}
       </FormMessage>
       <FormMessage tone="error" title={errors.form?.title}>
         {errors.form?.detail}
       </FormMessage>
+      <div className="flex flex-col gap-4">
       <TextField label="Full name" name="name" autoComplete="off" required error={errors.fields.name} />
       <TextField
         label="Work e-mail"
@@ -80,6 +81,7 @@ export function InviteForm() {
       <Button type="submit" busy={invite.isPending} className="mt-1 self-start">
         Send invitation
       </Button>
+      </div>
     </form>
   );
 }
