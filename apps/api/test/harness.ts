@@ -29,6 +29,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     PUBLIC_URL: 'http://gloaming.test',
     SMTP_PORT: String(catcher.smtpPort),
     GLOAMING_FAKES: 'false',
+    DATA_DIR: db.dir,
     ...env,
   });
   const mailer = createSmtpMailer(config.mail);
