@@ -46,3 +46,5 @@ export {
 export { checkWiring, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
 // -- constant-voltage runs, takeoff, labour, money (section C)
 export * from './money';
+export * from './takeoff';
+export * from './labour';

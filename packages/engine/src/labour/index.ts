@@ -1,0 +1,2 @@
+export * from './labour-table';
+export * from './labour';
