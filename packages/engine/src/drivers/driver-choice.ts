@@ -1,6 +1,6 @@
 import type { Finding } from '../findings';
 import { roundForDisplay as r2 } from '../units/round';
-import { evaluateDriver, prepareString, type PreparedString } from '../series/series-string';
+import { assembleResult, evaluateDriverParts, prepareString, type PreparedString } from '../series/series-string';
 import type { LedDriver, SeriesStringResult, StringLayout } from '../series/series-types';
 
 /**
@@ -53,6 +53,8 @@ const REASON_ORDER = [
   'headroom-below-margin',
 ];
 
+const CURRENT_RANK = REASON_ORDER.indexOf('current-above-rating');
+
 function reasonRank(f: Finding): number {
   const i = REASON_ORDER.indexOf(f.code);
   return i < 0 ? REASON_ORDER.length : i;
@@ -82,12 +84,17 @@ export function chooseDriversPrepared(prepared: PreparedString, catalogue: reado
   const suitable: SuitableDriver[] = [];
   const rejected: RejectedDriver[] = [];
   for (const driver of catalogue) {
-    const result = evaluateDriver(prepared, driver);
-    const reasons = result.findings.filter(rejectsDriver);
-    if (reasons.length > 0) {
-      reasons.sort((a, b) => reasonRank(a) - reasonRank(b));
-      rejected.push({ driver, reasons });
+    const e = evaluateDriverParts(prepared, driver);
+    const own = e.own.filter(rejectsDriver);
+    const mismatch = e.cvSupply ? [] : e.atCurrent.rejecting;
+    if (own.length > 0 || mismatch.length > 0) {
+      own.sort((a, b) => reasonRank(a) - reasonRank(b));
+      // current mismatches rank after a broken record or a constant-voltage output, before the rest
+      const early = own.filter((f) => reasonRank(f) < CURRENT_RANK);
+      const late = own.filter((f) => reasonRank(f) >= CURRENT_RANK);
+      rejected.push({ driver, reasons: early.concat(mismatch, late) });
     } else {
+      const result = assembleResult(prepared, e);
       suitable.push({
         driver,
         costMinor: driver.costMinor ?? null,

@@ -178,6 +178,34 @@ function query(g: CurrentGroup, v: number): number {
   return g.cheapest[b[a] === v ? 2 * a : 2 * a + 1]!;
 }
 
+interface SegmentWalk {
+  groups: CurrentGroup[];
+  leadOhm: number;
+  prefixLink: Float64Array;
+  n: number;
+}
+
+/** Call `visit(j, group, driver)` for every string [i, j) some driver accepts, with its cheapest driver per current. */
+function walkSegments(w: SegmentWalk, i: number, visit: (j: number, gi: number, k: number) => void): void {
+  const { groups, leadOhm, prefixLink, n } = w;
+  for (let gi = 0; gi < groups.length; gi++) {
+    const g = groups[gi]!;
+    const I = g.currentA;
+    const pv = g.prefixV;
+    const bad = g.bad;
+    const fixed = I * leadOhm;
+    const pvi = pv[i]!;
+    const pli = prefixLink[i]!;
+    for (let j = i + 1; j <= n; j++) {
+      if (bad[j - 1] === 1) break;
+      const vc = pv[j]! - pvi + fixed + I * (prefixLink[j - 1]! - pli);
+      if (vc > g.maxHi) break;
+      const k = query(g, vc);
+      if (k >= 0) visit(j, gi, k);
+    }
+  }
+}
+
 /**
  * Split an ordered run into contiguous strings, each on one driver from the catalogue,
  * minimising the total driver cost. Dynamic programming over the cut points; drivers are
@@ -250,6 +278,7 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
     if (g) groups.push(g);
   }
 
+  const segments: SegmentWalk = { groups, leadOhm, prefixLink, n };
   const best = new Float64Array(n + 1).fill(Infinity);
   const fromIdx = new Int32Array(n + 1).fill(-1);
   const groupIdx = new Int32Array(n + 1).fill(-1);
@@ -258,33 +287,19 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
   for (let i = 0; i < n; i++) {
     const base = best[i]!;
     if (base === Infinity) continue;
-    for (let gi = 0; gi < groups.length; gi++) {
-      const g = groups[gi]!;
-      const I = g.currentA;
-      const pv = g.prefixV;
-      const bad = g.bad;
-      const fixed = I * leadOhm;
-      const pvi = pv[i]!;
-      const pli = prefixLink[i]!;
-      for (let j = i + 1; j <= n; j++) {
-        if (bad[j - 1] === 1) break;
-        const vc = pv[j]! - pvi + fixed + I * (prefixLink[j - 1]! - pli);
-        if (vc > g.maxHi) break;
-        const k = query(g, vc);
-        if (k < 0) continue;
-        const c = base + g.drivers[k]!.costMinor!;
-        if (c < best[j]!) {
-          best[j] = c;
-          fromIdx[j] = i;
-          groupIdx[j] = gi;
-          driverIdx[j] = k;
-        }
+    walkSegments(segments, i, (j, gi, k) => {
+      const c = base + groups[gi]!.drivers[k]!.costMinor!;
+      if (c < best[j]!) {
+        best[j] = c;
+        fromIdx[j] = i;
+        groupIdx[j] = gi;
+        driverIdx[j] = k;
       }
-    }
+    });
   }
 
   if (best[n] === Infinity) {
-    return empty([diagnose(prepared, groups, best, leadOhm, excludedDrivers.length, catalogue.length)]);
+    return empty([diagnose(prepared, segments, best, excludedDrivers.length, catalogue.length)]);
   }
   const strings: SplitString[] = [];
   for (let j = n; j > 0; j = fromIdx[j]!) {
@@ -307,21 +322,8 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
   return { ok: findings.length === 0, strings, totalCostMinor: best[n]!, findings, excludedDrivers };
 }
 
-function diagnose(
-  prepared: PreparedString,
-  groups: CurrentGroup[],
-  best: Float64Array,
-  leadOhm: number,
-  excluded: number,
-  catalogueSize: number,
-): Finding {
-  let reach = 0;
-  for (let i = 0; i < best.length - 1; i++) if (best[i] !== Infinity) reach = i;
-  const k = reach;
-  const f = prepared.fittings[k]!;
-  const what = `fitting ${k + 1}${f.id ? ` (${f.id})` : ''}`;
-  const subject = `fitting:${k + 1}`;
-  const after = k > 0 ? ` The run splits up to fitting ${k}; from ${what} on nothing fits.` : '';
+function diagnose(prepared: PreparedString, w: SegmentWalk, best: Float64Array, excluded: number, catalogueSize: number): Finding {
+  const { groups, leadOhm, n } = w;
   if (groups.length === 0) {
     return finding(
       'split-impossible',
@@ -330,28 +332,61 @@ function diagnose(
       { subject: 'catalogue' },
     );
   }
-  const rated = f.ratings.map((r) => `${r2(r.currentA * 1000, 1)} mA`).join(' / ');
-  const fitGroups = groups.filter((g) => g.bad[k] === 0);
-  if (fitGroups.length === 0) {
-    const have = groups.map((g) => `${r2(g.currentA * 1000, 1)} mA`).join(', ');
-    return finding('split-impossible', 'error', `No usable driver runs at a current ${what} is rated for (${rated}); the catalogue offers ${have}.${after}`, {
-      subject,
+  const name = (k: number): string => {
+    const f = prepared.fittings[k]!;
+    return `fitting ${k + 1}${f.id ? ` (${f.id})` : ''}`;
+  };
+  const mA = (a: number): string => `${r2(a * 1000, 1)} mA`;
+  // 1. a fitting no usable driver's current suits
+  for (let k = 0; k < n; k++) {
+    if (groups.every((g) => g.bad[k] === 1)) {
+      const rated = prepared.fittings[k]!.ratings.map((r) => mA(r.currentA)).join(' / ');
+      return finding(
+        'split-impossible',
+        'error',
+        `No usable driver runs at a current ${name(k)} is rated for (${rated}); the catalogue offers ${groups.map((g) => mA(g.currentA)).join(', ')}.`,
+        { subject: `fitting:${k + 1}` },
+      );
+    }
+  }
+  // 2. a fitting too much for any driver even on its own
+  for (let k = 0; k < n; k++) {
+    const parts: string[] = [];
+    let tooHigh = true;
+    for (const g of groups) {
+      if (g.bad[k] === 1) continue;
+      const alone = g.prefixV[k + 1]! - g.prefixV[k]! + g.currentA * leadOhm;
+      if (alone <= g.maxHi) tooHigh = false;
+      parts.push(`at ${mA(g.currentA)} it needs ${r2(alone)} V with its lead, the most any driver gives within the firm's margin is ${r2(g.maxHi)} V`);
+    }
+    if (tooHigh) {
+      return finding('split-impossible', 'error', `Even alone, ${name(k)} is too much for any driver: ${parts.join('; ')}.`, {
+        subject: `fitting:${k + 1}`,
+      });
+    }
+  }
+  // 3. a fitting that no acceptable string contains
+  let farthest = 0;
+  for (let i = 0; i < n; i++) {
+    walkSegments(w, i, (j) => {
+      if (j > farthest) farthest = j;
     });
+    if (farthest <= i) {
+      return finding(
+        'split-impossible',
+        'error',
+        `No string that includes ${name(i)} lands inside any driver's window with the firm's headroom margin: with its neighbours it is too little for the minimums or too much for the maximums.`,
+        { subject: `fitting:${i + 1}` },
+      );
+    }
   }
-  const parts: string[] = [];
-  let tooHigh = true;
-  for (const g of fitGroups) {
-    const alone = g.prefixV[k + 1]! - g.prefixV[k]! + g.currentA * leadOhm;
-    if (alone <= g.maxHi) tooHigh = false;
-    parts.push(`at ${r2(g.currentA * 1000, 1)} mA it needs ${r2(alone)} V on its own, the most a driver gives within the margin is ${r2(g.maxHi)} V`);
-  }
-  if (tooHigh) {
-    return finding('split-impossible', 'error', `Even alone, ${what} is too much for any driver: ${parts.join('; ')}.${after}`, { subject });
-  }
+  // 4. every fitting fits somewhere, but the pieces do not join up
+  let reach = 0;
+  for (let i = 0; i < n; i++) if (best[i] !== Infinity) reach = i;
   return finding(
     'split-impossible',
     'error',
-    `No string that starts at ${what} lands inside any driver's window (with the firm's headroom margin): ${parts.join('; ')}. Neighbouring fittings at other currents, or the minimum of every window, rule it out.${after}`,
-    { subject },
+    `The run can be split up to fitting ${reach}, but no string starting at ${name(reach)} fits a driver; try other cut points by moving fittings between runs or adding a driver with a lower minimum.`,
+    { subject: `fitting:${reach + 1}` },
   );
 }

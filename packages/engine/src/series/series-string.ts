@@ -48,6 +48,8 @@ export interface StringAtCurrent {
   cables: CableAtCurrent[];
   /** Current-mismatch findings (above rating: error; below: warning; between: info). */
   findings: Finding[];
+  /** The mismatch findings that rule a driver at this current out (above or below a rating). */
+  rejecting: Finding[];
   /** Largest per-fitting voltage (Vf plus its tail's drop), V, and whether all are alike. */
   perFittingMaxV: number;
   uniform: boolean;
@@ -66,6 +68,8 @@ export interface PreparedString {
   tailsLoopOhm: number;
   layoutFindings: Finding[];
   cache: Map<number, StringAtCurrent>;
+  /** Driver IP findings by IP code text, at this layout's driver location. */
+  driverIpCache: Map<string, Finding[]>;
 }
 
 function loopOhm(
@@ -155,6 +159,7 @@ export function prepareString(layout: StringLayout): PreparedString {
     tailsLoopOhm,
     layoutFindings,
     cache: new Map(),
+    driverIpCache: new Map(),
   };
 }
 
@@ -235,6 +240,7 @@ export function stringAtCurrent(prepared: PreparedString, currentA: number): Str
     fittings,
     cables,
     findings,
+    rejecting: findings.filter((f) => f.code === 'current-above-rating' || f.code === 'current-below-rating'),
     perFittingMaxV,
     uniform,
   };
@@ -301,6 +307,47 @@ export function checkDriverRecord(driver: LedDriver): Finding[] {
 
 /** Evaluate a prepared layout on one driver. */
 export function evaluateDriver(prepared: PreparedString, driver: LedDriver): SeriesStringResult {
+  return assembleResult(prepared, evaluateDriverParts(prepared, driver));
+}
+
+export interface DriverEvaluation {
+  /** The result with `findings` and `ok` not yet filled in (assembleResult does it). */
+  figures: SeriesStringResult;
+  /** Findings that belong to this driver, apart from the layout's and the current's shared ones. */
+  own: Finding[];
+  atCurrent: StringAtCurrent;
+  cvSupply: boolean;
+}
+
+/** The full result: layout findings, then current-mismatch findings, then the driver's own. */
+export function assembleResult(prepared: PreparedString, e: DriverEvaluation): SeriesStringResult {
+  const findings = prepared.layoutFindings.concat(e.cvSupply ? [] : e.atCurrent.findings, e.own);
+  const result = e.figures;
+  result.findings = findings;
+  result.ok = !hasErrors(findings);
+  return result;
+}
+
+function driverIpFindings(prepared: PreparedString, ipCode: string | undefined): Finding[] {
+  const key = ipCode ?? '';
+  let hit = prepared.driverIpCache.get(key);
+  if (!hit) {
+    hit = checkIpForLocation(ipCode, prepared.layout.driverLocation, {
+      subject: 'driver',
+      prefix: 'driver',
+      overrides: prepared.ipOverrides,
+      what: 'The driver',
+    });
+    prepared.driverIpCache.set(key, hit);
+  }
+  return hit;
+}
+
+/**
+ * Evaluate and also return the findings that belong to this driver (`own`) apart from the
+ * layout's and the current's shared ones, so driver choice can sift many drivers quickly.
+ */
+export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver): DriverEvaluation {
   const findings: Finding[] = [...checkDriverRecord(driver)];
   const driverWhat = `The driver${driver?.id ? ` (${driver.id})` : ''}`;
   const cvSupply = driver?.output === 'constant-voltage';
@@ -318,16 +365,7 @@ export function evaluateDriver(prepared: PreparedString, driver: LedDriver): Ser
   const fallbackA = prepared.fittings[0]?.ratings[0]?.currentA ?? 0;
   const currentA = !cvSupply && Number.isFinite(driver?.currentA) && driver.currentA > 0 ? driver.currentA : fallbackA;
   const at = stringAtCurrent(prepared, currentA);
-  findings.push(...prepared.layoutFindings);
-  if (!cvSupply) findings.push(...at.findings);
-  findings.push(
-    ...checkIpForLocation(driver?.ipCode, prepared.layout.driverLocation, {
-      subject: 'driver',
-      prefix: 'driver',
-      overrides: prepared.ipOverrides,
-      what: driverWhat,
-    }),
-  );
+  findings.push(...driverIpFindings(prepared, driver?.ipCode));
 
   const cableLoopResistanceOhm = prepared.runsLoopOhm + prepared.tailsLoopOhm;
   const cableDropV = currentA * cableLoopResistanceOhm;
@@ -447,7 +485,7 @@ export function evaluateDriver(prepared: PreparedString, driver: LedDriver): Ser
     maxFittingsBasis = at.uniform ? 'uniform' : 'largest-fitting';
   }
 
-  return {
+  const figures: DriverEvaluation['figures'] = {
     driverId: driver?.id ?? '',
     currentA,
     fittingCount: prepared.fittings.length,
@@ -470,9 +508,10 @@ export function evaluateDriver(prepared: PreparedString, driver: LedDriver): Ser
     maxFittingsBasis,
     fittings: at.fittings,
     cables: at.cables,
-    findings,
-    ok: !hasErrors(findings),
+    findings: [],
+    ok: false,
   };
+  return { figures, own: findings, atCurrent: at, cvSupply };
 }
 
 /**
