@@ -22,7 +22,7 @@ export function LandingPage() {
     <div className="min-h-screen bg-canvas text-ink">
       <a
         href="#main"
-        className="sr-only z-50 rounded-control bg-accent px-4 py-2 font-semibold text-accent-ink focus:not-sr-only focus:fixed focus:top-3 focus:left-3"
+        className="sr-only z-50 rounded-control bg-accent px-4 py-2 font-semibold text-accent-ink focus:not-sr-only focus:fixed focus:px-4 focus:py-2 focus:top-3 focus:left-3"
       >
         Skip to main content
       </a>
@@ -39,7 +39,10 @@ export function LandingPage() {
       </header>
 
       <main id="main">
-        <section aria-labelledby="intro-title" className="on-dark relative overflow-hidden bg-dusk-900 bg-[radial-gradient(ellipse_at_85%_120%,rgb(245_168_58/0.3),transparent_55%)]">
+        <section
+          aria-labelledby="intro-title"
+          className="on-dark relative overflow-hidden bg-dusk-900 bg-[radial-gradient(ellipse_at_85%_120%,rgb(245_168_58/0.3),transparent_55%)]"
+        >
           <Glow />
           <div className="relative mx-auto max-w-5xl px-5 pt-12 pb-28 sm:px-8 sm:pt-20 sm:pb-28">
             <p className="text-caption font-semibold tracking-wide text-lamp-300 uppercase">For homeowners</p>
@@ -47,8 +50,8 @@ export function LandingPage() {
               Your garden lighting quote arrives as a personal link
             </h1>
             <p className="mt-5 max-w-xl text-lead text-dusk-100">
-              The lighting firm that surveyed your garden sends you an e-mail with a link made for you. Open it on your
-              phone or computer to see the quote. There is no account to create and no password to remember.
+              The lighting firm that surveyed your garden sends you an e-mail with a link made for you. Open it on your phone or
+              computer to see the quote. There is no account to create and no password to remember.
             </p>
           </div>
         </section>
@@ -82,12 +85,12 @@ export function LandingPage() {
             </h2>
             <div className="mt-3 flex max-w-measure flex-col gap-3 text-ink-muted">
               <p>
-                Contact the lighting firm that sent your quote and ask them to send the link again. Their name and
-                contact details are in the e-mail the link came in.
+                Contact the lighting firm that sent your quote and ask them to send the link again. Their name and contact details
+                are in the e-mail the link came in.
               </p>
               <p>
-                To keep your details private, quotes cannot be looked up from this page. Your link is personal to you,
-                so please do not forward it to anyone you would not want to approve the quote.
+                To keep your details private, quotes cannot be looked up from this page. Your link is personal to you, so please
+                do not forward it to anyone you would not want to approve the quote.
               </p>
             </div>
           </div>
@@ -129,11 +132,7 @@ function Glow() {
     { x: 222, y: 112, s: 0.64 },
   ];
   return (
-    <svg
-      viewBox="0 0 280 180"
-      className="pointer-events-none absolute right-0 bottom-0 h-32 w-auto sm:h-48"
-      aria-hidden="true"
-    >
+    <svg viewBox="0 0 280 180" className="pointer-events-none absolute right-0 bottom-0 h-32 w-auto sm:h-48" aria-hidden="true">
       <defs>
         <radialGradient id="portal-pool" cx="50%" cy="50%" r="50%">
           <stop offset="0" stopColor="#ffd899" stopOpacity="0.7" />

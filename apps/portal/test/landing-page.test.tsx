@@ -14,9 +14,7 @@ describe('LandingPage', () => {
 
   it('lists the four things a homeowner does with the link, in order', () => {
     render(<LandingPage />);
-    const steps = within(screen.getByRole('region', { name: 'What you can do with your link' })).getAllByRole(
-      'listitem',
-    );
+    const steps = within(screen.getByRole('region', { name: 'What you can do with your link' })).getAllByRole('listitem');
     expect(steps.map((step) => within(step).getByRole('heading').textContent)).toEqual([
       'Review your quote',
       'Choose your options',

@@ -15,17 +15,13 @@ async function redirectOf(promise: Promise<unknown>): Promise<string | null> {
 describe('route guards', () => {
   it('sends a signed-out visitor to sign in, remembering where they were going', async () => {
     stubFetch(() => problem(401, { title: 'Not signed in', detail: 'Sign in to continue.' }));
-    const location = await redirectOf(
-      requireUser(createQueryClient(), new Request('http://gloaming.test/jobs?site=12')),
-    );
+    const location = await redirectOf(requireUser(createQueryClient(), new Request('http://gloaming.test/jobs?site=12')));
     expect(location).toBe(`/sign-in?next=${encodeURIComponent('/jobs?site=12')}`);
   });
 
   it('sends an installer who opens the overview to their own home', async () => {
     stubFetch(() => json(200, { user: { ...OWNER, role: 'installer' } }));
-    const location = await redirectOf(
-      requireRole(createQueryClient(), new Request('http://gloaming.test/overview'), ['owner']),
-    );
+    const location = await redirectOf(requireRole(createQueryClient(), new Request('http://gloaming.test/overview'), ['owner']));
     expect(location).toBe('/jobs');
   });
 

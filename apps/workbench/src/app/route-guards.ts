@@ -15,11 +15,7 @@ export async function requireUser(queryClient: QueryClient, request: Request): P
 }
 
 /** Like requireUser, and sends people whose role may not open the screen to their own home. */
-export async function requireRole(
-  queryClient: QueryClient,
-  request: Request,
-  roles: ReadonlyArray<Role>,
-): Promise<SessionUser> {
+export async function requireRole(queryClient: QueryClient, request: Request, roles: ReadonlyArray<Role>): Promise<SessionUser> {
   const user = await requireUser(queryClient, request);
   if (!roles.includes(user.role)) throw redirect(ROLE_HOME[user.role]);
   return user;

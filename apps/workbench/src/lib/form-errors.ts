@@ -40,7 +40,9 @@ export function fromRequestError<Field extends string>(
     const message = error.messageFor(field);
     if (message) result.fields[field] = message;
   }
-  const unplaced = error.fieldErrors.some((fieldError) => !fields.some((field) => fieldError.path === field || fieldError.path.endsWith(`.${field}`)));
+  const unplaced = error.fieldErrors.some(
+    (fieldError) => !fields.some((field) => fieldError.path === field || fieldError.path.endsWith(`.${field}`)),
+  );
   if (error.fieldErrors.length === 0 || unplaced) {
     result.form = { title: titles[error.status] ?? titleFor(error.status, error.title), detail: error.detail };
   }

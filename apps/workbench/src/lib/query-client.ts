@@ -9,8 +9,7 @@ export function createQueryClient(queryCache?: QueryCache): QueryClient {
         staleTime: 30_000,
         refetchOnWindowFocus: false,
         // Retry only what might succeed a second time: no answer, or the server failing.
-        retry: (failureCount, error) =>
-          failureCount < 2 && (!isApiError(error) || error.status === 0 || error.status >= 500),
+        retry: (failureCount, error) => failureCount < 2 && (!isApiError(error) || error.status === 0 || error.status >= 500),
       },
       mutations: { retry: false },
     },

@@ -4,15 +4,7 @@ import type { ReactNode } from 'react';
  * What a screen shows before it has anything to list: what will appear here, and what makes it
  * appear. Never placeholder rows.
  */
-export function EmptyState({
-  illustration,
-  title,
-  children,
-}: {
-  illustration: ReactNode;
-  title: string;
-  children: ReactNode;
-}) {
+export function EmptyState({ illustration, title, children }: { illustration: ReactNode; title: string; children: ReactNode }) {
   return (
     <section
       aria-labelledby="empty-state-title"

@@ -21,7 +21,7 @@ export function SelectField({ label, options, error, className = '', ...select }
           aria-invalid={error ? true : undefined}
           aria-describedby={error ? errorId : undefined}
           className={`h-11 w-full appearance-none rounded-control bg-surface pr-10 pl-3.5 text-body text-ink shadow-control ring-1 ring-inset focus-visible:outline-offset-0 ${
-            error ? 'ring-2 ring-danger' : 'ring-mist-300 hover:ring-mist-400'
+            error ? 'ring-2 ring-danger' : 'ring-line-strong hover:ring-mist-500'
           }`}
           {...select}
         >

@@ -28,7 +28,7 @@ export function TextField({ label, error, hint, labelAside, className = '', ...i
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
         className={`h-11 w-full rounded-control bg-surface px-3.5 text-body text-ink shadow-control ring-1 ring-inset placeholder:text-mist-400 focus-visible:outline-offset-0 ${
-          error ? 'ring-2 ring-danger' : 'ring-mist-300 hover:ring-mist-400'
+          error ? 'ring-2 ring-danger' : 'ring-line-strong hover:ring-mist-500'
         }`}
         {...input}
       />

@@ -18,8 +18,8 @@ export function JobsHome() {
       </PageHeader>
       <EmptyState illustration={<JobPackIllustration />} title="Nothing to install yet">
         <p>
-          A job appears here once a homeowner approves a quote and the deposit is paid. Each job carries an installer’s
-          pack taken from the approved revision, so what is fitted matches what was sold.
+          A job appears here once a homeowner approves a quote and the deposit is paid. Each job carries an installer’s pack taken
+          from the approved revision, so what is fitted matches what was sold.
         </p>
         <ul aria-label="What each job includes" className="mt-2 grid gap-3 text-left sm:grid-cols-3">
           {PACK_CONTENTS.map((item) => (
@@ -30,8 +30,8 @@ export function JobsHome() {
           ))}
         </ul>
         <p className="text-caption">
-          Gloaming plans the low-voltage side. Mains connections, RCD protection, isolation and certification are work
-          for a licensed electrician under your local wiring rules.
+          Gloaming plans the low-voltage side. Mains connections, RCD protection, isolation and certification are work for a
+          licensed electrician under your local wiring rules.
         </p>
       </EmptyState>
     </>

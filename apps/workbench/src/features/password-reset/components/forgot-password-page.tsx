@@ -39,18 +39,18 @@ export function ForgotPasswordPage() {
             {errors.form?.detail}
           </FormMessage>
           <div className="flex flex-col gap-5">
-          <TextField
-            label="E-mail"
-            name="email"
-            type="email"
-            autoComplete="username"
-            spellCheck={false}
-            required
-            error={errors.fields.email}
-          />
-          <Button type="submit" fullWidth busy={request.isPending}>
-            Send reset link
-          </Button>
+            <TextField
+              label="E-mail"
+              name="email"
+              type="email"
+              autoComplete="username"
+              spellCheck={false}
+              required
+              error={errors.fields.email}
+            />
+            <Button type="submit" fullWidth busy={request.isPending}>
+              Send reset link
+            </Button>
           </div>
         </form>
       )}

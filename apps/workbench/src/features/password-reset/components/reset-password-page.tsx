@@ -55,6 +55,14 @@ export function ResetPasswordPage() {
           .
         </LinkProblem>
       )}
+      {complete.isSuccess ? null : (
+        <p className="mt-8 text-caption text-ink-muted">
+          Link expired or already used?{' '}
+          <Link to="/forgot-password" className="font-medium text-dusk-600 underline underline-offset-4">
+            Ask for a new one
+          </Link>
+        </p>
+      )}
     </AuthFrame>
   );
 }

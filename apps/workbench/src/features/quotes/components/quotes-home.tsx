@@ -20,9 +20,9 @@ export function QuotesHome() {
       </PageHeader>
       <EmptyState illustration={<QuoteSheetIllustration />} title="Nothing priced so far">
         <p>
-          Quotes are listed here with the customer, the site address, the total including VAT and where each one
-          stands. A quote is built from the lighting design: the fittings on each run, the driver and cable chosen for
-          it, the connector blocks, and the labour to install them, so its totals follow the design.
+          Quotes are listed here with the customer, the site address, the total including VAT and where each one stands. A quote
+          is built from the lighting design: the fittings on each run, the driver and cable chosen for it, the connector blocks,
+          and the labour to install them, so its totals follow the design.
         </p>
         <ol aria-label="Stages of a quote" className="mt-2 grid gap-3 text-left sm:grid-cols-5">
           {QUOTE_STAGES.map((stage, index) => (

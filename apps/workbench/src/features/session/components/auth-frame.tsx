@@ -16,8 +16,7 @@ export function AuthFrame({ title, intro, children }: { title: string; intro?: R
               From survey to switch-on, every circuit accounted for.
             </p>
             <p className="mt-3 text-body text-dusk-100">
-              Design low-voltage garden lighting, quote it with confidence and hand installers a pick list they can
-              trust.
+              Design low-voltage garden lighting, quote it with confidence and hand installers a pick list they can trust.
             </p>
           </div>
         </div>

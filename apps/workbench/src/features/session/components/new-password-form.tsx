@@ -42,26 +42,26 @@ export function NewPasswordForm({
         {errors.form?.detail}
       </FormMessage>
       <div className="flex flex-col gap-5">
-      <TextField
-        label="New password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        required
-        hint={`At least ${MIN_PASSWORD_LENGTH} characters. A short sentence is easy to remember and hard to guess.`}
-        error={errors.fields.password}
-      />
-      <TextField
-        label="Repeat new password"
-        name="confirmation"
-        type="password"
-        autoComplete="new-password"
-        required
-        error={mismatch ? 'The two passwords are different. Type the same password twice.' : errors.fields.confirmation}
-      />
-      <Button type="submit" fullWidth busy={busy}>
-        {submitLabel}
-      </Button>
+        <TextField
+          label="New password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          required
+          hint={`At least ${MIN_PASSWORD_LENGTH} characters. A short sentence is easy to remember and hard to guess.`}
+          error={errors.fields.password}
+        />
+        <TextField
+          label="Repeat new password"
+          name="confirmation"
+          type="password"
+          autoComplete="new-password"
+          required
+          error={mismatch ? 'The two passwords are different. Type the same password twice.' : errors.fields.confirmation}
+        />
+        <Button type="submit" fullWidth busy={busy}>
+          {submitLabel}
+        </Button>
       </div>
     </form>
   );

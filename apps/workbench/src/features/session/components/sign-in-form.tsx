@@ -37,32 +37,32 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
         {errors.form?.detail}
       </FormMessage>
       <div className="flex flex-col gap-5">
-      <TextField
-        label="E-mail"
-        name="email"
-        type="email"
-        autoComplete="username"
-        inputMode="email"
-        spellCheck={false}
-        required
-        error={errors.fields.email}
-      />
-      <TextField
-        label="Password"
-        name="password"
-        type="password"
-        autoComplete="current-password"
-        required
-        error={errors.fields.password}
-        labelAside={
-          <Link to="/forgot-password" className="text-caption font-medium text-dusk-600 underline-offset-4 hover:underline">
-            Forgot password?
-          </Link>
-        }
-      />
-      <Button type="submit" fullWidth busy={signIn.isPending} className="mt-1">
-        {signIn.isPending ? 'Signing in…' : 'Sign in'}
-      </Button>
+        <TextField
+          label="E-mail"
+          name="email"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          spellCheck={false}
+          required
+          error={errors.fields.email}
+        />
+        <TextField
+          label="Password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          error={errors.fields.password}
+          labelAside={
+            <Link to="/forgot-password" className="text-caption font-medium text-dusk-600 underline-offset-4 hover:underline">
+              Forgot password?
+            </Link>
+          }
+        />
+        <Button type="submit" fullWidth busy={signIn.isPending} className="mt-1">
+          {signIn.isPending ? 'Signing in…' : 'Sign in'}
+        </Button>
       </div>
     </form>
   );

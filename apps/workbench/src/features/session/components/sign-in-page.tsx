@@ -20,8 +20,7 @@ export function SignInPage() {
     >
       <SignInForm onSignedIn={handleSignedIn} />
       <p className="mt-8 border-t border-line pt-6 text-caption text-ink-muted">
-        New to your firm’s workspace? Ask its owner to send you an invitation; the link in that e-mail lets you set a
-        password.
+        New to your firm’s workspace? Ask its owner to send you an invitation; the link in that e-mail lets you set a password.
       </p>
     </AuthFrame>
   );

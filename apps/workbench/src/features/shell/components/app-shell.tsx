@@ -22,7 +22,7 @@ export function AppShell() {
     <div className="min-h-screen bg-canvas lg:grid lg:grid-cols-[var(--spacing-sidebar)_minmax(0,1fr)]">
       <a
         href="#main"
-        className="sr-only z-50 rounded-control bg-accent px-4 py-2 font-semibold text-accent-ink focus:not-sr-only focus:fixed focus:top-3 focus:left-3"
+        className="sr-only z-50 rounded-control bg-accent px-4 py-2 font-semibold text-accent-ink focus:not-sr-only focus:fixed focus:px-4 focus:py-2 focus:top-3 focus:left-3"
       >
         Skip to main content
       </a>

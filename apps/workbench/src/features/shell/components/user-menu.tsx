@@ -62,7 +62,14 @@ export function UserMenu({ user }: { user: SessionUser }) {
             className="mt-3 flex h-10 w-full items-center justify-center gap-2 rounded-control bg-dusk-50 font-semibold text-dusk-800 ring-1 ring-dusk-200 ring-inset hover:bg-dusk-100"
           >
             <svg viewBox="0 0 20 20" className="size-4" aria-hidden="true">
-              <path d="M8 4H4v12h4M12 6.5 15.5 10 12 13.5M15.5 10H8" fill="none" stroke="currentColor" strokeWidth="1.7" strokeLinecap="round" strokeLinejoin="round" />
+              <path
+                d="M8 4H4v12h4M12 6.5 15.5 10 12 13.5M15.5 10H8"
+                fill="none"
+                stroke="currentColor"
+                strokeWidth="1.7"
+                strokeLinecap="round"
+                strokeLinejoin="round"
+              />
             </svg>
             {signOut.isPending ? 'Signing out…' : 'Sign out'}
           </button>
@@ -78,7 +85,11 @@ export function UserMenu({ user }: { user: SessionUser }) {
       >
         <Initials name={user.name} tone="dark" />
         <span className="min-w-0 flex-1 truncate font-medium">{user.name}</span>
-        <svg viewBox="0 0 16 16" className={`size-4 text-dusk-300 transition-transform ${open ? '' : 'rotate-180'}`} aria-hidden="true">
+        <svg
+          viewBox="0 0 16 16"
+          className={`size-4 text-dusk-300 transition-transform ${open ? '' : 'rotate-180'}`}
+          aria-hidden="true"
+        >
           <path d="m4 6 4 4 4-4" fill="none" stroke="currentColor" strokeWidth="1.75" strokeLinecap="round" />
         </svg>
       </button>

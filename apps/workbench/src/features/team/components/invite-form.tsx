@@ -54,33 +54,33 @@ export function InviteForm() {
         {errors.form?.detail}
       </FormMessage>
       <div className="flex flex-col gap-4">
-      <TextField label="Full name" name="name" autoComplete="off" required error={errors.fields.name} />
-      <TextField
-        label="Work e-mail"
-        name="email"
-        type="email"
-        autoComplete="off"
-        spellCheck={false}
-        required
-        error={errors.fields.email}
-      />
-      <div className="flex flex-col gap-1.5">
-        <SelectField
-          label="Role"
-          name="role"
-          options={ROLE_OPTIONS}
-          value={role}
-          onChange={(event) => {
-            const next = Role.safeParse(event.target.value);
-            if (next.success) setRole(next.data);
-          }}
-          error={errors.fields.role}
+        <TextField label="Full name" name="name" autoComplete="off" required error={errors.fields.name} />
+        <TextField
+          label="Work e-mail"
+          name="email"
+          type="email"
+          autoComplete="off"
+          spellCheck={false}
+          required
+          error={errors.fields.email}
         />
-        <p className="text-caption text-ink-muted">{ROLE_SUMMARY[role]}</p>
-      </div>
-      <Button type="submit" busy={invite.isPending} className="mt-1 self-start">
-        Send invitation
-      </Button>
+        <div className="flex flex-col gap-1.5">
+          <SelectField
+            label="Role"
+            name="role"
+            options={ROLE_OPTIONS}
+            value={role}
+            onChange={(event) => {
+              const next = Role.safeParse(event.target.value);
+              if (next.success) setRole(next.data);
+            }}
+            error={errors.fields.role}
+          />
+          <p className="text-caption text-ink-muted">{ROLE_SUMMARY[role]}</p>
+        </div>
+        <Button type="submit" busy={invite.isPending} className="mt-1 self-start">
+          Send invitation
+        </Button>
       </div>
     </form>
   );

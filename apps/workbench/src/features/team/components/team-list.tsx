@@ -11,9 +11,7 @@ const STATUS: Record<TeamMember['status'], { label: string; tone: 'positive' | '
 const ROLE_ORDER: Record<TeamMember['role'], number> = { owner: 0, estimator: 1, installer: 2 };
 
 export function TeamList({ members, currentUserId }: { members: readonly TeamMember[]; currentUserId: string }) {
-  const sorted = [...members].sort(
-    (a, b) => ROLE_ORDER[a.role] - ROLE_ORDER[b.role] || a.name.localeCompare(b.name, 'en-GB'),
-  );
+  const sorted = [...members].sort((a, b) => ROLE_ORDER[a.role] - ROLE_ORDER[b.role] || a.name.localeCompare(b.name, 'en-GB'));
   return (
     <table className="w-full text-left text-body">
       <caption className="sr-only">Team members, their role and whether they can sign in</caption>
