@@ -49,7 +49,7 @@ describe('sign-in page', () => {
       await page.screenshot({ path: screenshotPath(`home-${a.role}`), fullPage: true });
 
       await page.getByRole('button', { name: a.name }).click();
-      await page.getByRole('menuitem', { name: 'Sign out' }).click();
+      await page.getByRole('button', { name: 'Sign out' }).click();
       await page.getByLabel('E-mail').waitFor();
       const session = await page.evaluate(async () => (await fetch('/api/session')).status);
       expect(session).toBe(401);

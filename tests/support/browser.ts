@@ -14,7 +14,8 @@ export interface BrowserSession {
 }
 
 /**
- * Debian's Chromium, headless, with a fresh profile and no background traffic. Every page
+ * Debian's Chromium, headless, with a fresh profile (playwright makes a new temporary
+ * user-data-dir for every launch) and no background traffic. Every page
  * records console errors, CSP violations and failed requests into `problems`.
  */
 export async function launchBrowser(): Promise<BrowserSession> {
@@ -33,7 +34,6 @@ export async function launchBrowser(): Promise<BrowserSession> {
       '--disable-component-update',
       '--disable-sync',
       '--no-first-run',
-      `--user-data-dir=${profile}`,
     ],
   });
   mkdirSync(ARTIFACTS_DIR, { recursive: true });
