@@ -2,7 +2,7 @@
  * Connector blocks and the terminal schedule. Rules checked (../shared/REFERENCES.md,
  * "LEDs and drivers", all common practice):
  * - series rule of thumb: driver + lands on fitting 1 +, each later fitting's + picks up the
- *   previous fitting's −, the last fitting's − returns to the driver's −;
+ *   previous fitting's -, the last fitting's - returns to the driver's -;
  * - constant-current fittings in series on one driver.
  * Entry seals and blanking plugs: a seal on every used entry, a blanking plug in every spare
  * one, a reducer for a cable thinner than the entry's range (common practice).
@@ -248,10 +248,17 @@ describe("installer's step list", () => {
     expect(texts[0]).toMatch(/licensed electrician/);
     expect(texts[1]).toBe('Mount block 1 (Test block, IP68) near fittings 1-4.');
     expect(texts[3]).toBe(
-      'Lay link cable 1 (two-core, 12 m) from block 1 to block 2. Core 1 carries the string on; core 2 carries the return back to the driver −.',
+      'Lay link cable 1 (two-core, 12 m) from block 1 to block 2. Core 1 carries the string on; core 2 carries the return back to the driver -.',
     );
-    expect(texts).toContain('Block 1 terminal 1: land driver lead + and fitting 1 (Path light 1) + (driver + to fitting 1 +).');
-    expect(texts).toContain('Block 2 terminal 4: land fitting 7 (Path light 7) − and link cable 1 core 2 (end B) (last fitting − returns to driver −).');
+    expect(texts).toContain('Block 1 terminal 1: land driver lead + and fitting 1 (Path light 1) + (driver + to the first fitting).');
+    expect(texts).toContain('Block 1 terminal 2: land fitting 1 (Path light 1) - and fitting 2 (Path light 2) +.');
+    expect(texts).toContain('Block 2 terminal 4: land fitting 7 (Path light 7) - and link cable 1 core 2 (end B) (last fitting - returns to driver -).');
+    expect(texts).toContain(
+      'Bring 6 cables into block 1 (6 entries) and seal each entry: driver lead, tails of fittings 1-4 and link cable 1.',
+    );
+    expect(texts).toContain(
+      'Bring 4 cables into block 2 (6 entries) and seal each entry; fit blanking plugs in the 2 spare entries: link cable 1 and tails of fittings 5-7.',
+    );
     // one landing step per terminal, in block order
     const landings = p.steps.filter((s) => / terminal \d+: land /.test(s.text)).map((s) => s.block);
     expect(landings).toEqual([1, 1, 1, 1, 1, 1, 2, 2, 2, 2]);

@@ -2,19 +2,18 @@
  * The terminal schedule for a constant-current series string spread over connector blocks.
  *
  * Series rule (common practice): the driver's + lands on fitting 1's +, each later fitting's +
- * picks up the previous fitting's −, and the last fitting's − returns to the driver's −.
+ * picks up the previous fitting's -, and the last fitting's - returns to the driver's -.
  * Across blocks, link cable n joins block n to block n+1: core 1 carries the string on,
- * core 2 carries the return leg back through every block to the driver's −.
+ * core 2 carries the return leg back through every block to the driver's -.
  *
  * Layout inside block j (fittings a..b):
  *   entry joint   driver+ (block 1) or link j-1 core 1 end B, with fitting a +
- *   joints        fitting k −, fitting k+1 +          for k = a..b-1
- *   exit joint    fitting b −, link j core 1 end A    (not the last block)
- *   return        driver− (block 1) or link j-1 core 2 end B, with link j core 2 end A
- *   last block    fitting b − with the return (driver− or link j-1 core 2 end B)
+ *   joints        fitting k -, fitting k+1 +          for k = a..b-1
+ *   exit joint    fitting b -, link j core 1 end A    (not the last block)
+ *   return        driver- (block 1) or link j-1 core 2 end B, with link j core 2 end A
+ *   last block    fitting b - with the return (driver- or link j-1 core 2 end B)
  */
 import { finding, hasErrors, type Finding } from '../findings';
-import { describeConductorEnd, formatConductorEnd, type ConductorEnd } from '../wiring/conductor-id';
 import type { ScheduleBlock, ScheduleTerminal, TerminalSchedule } from '../wiring/terminal-schedule';
 import {
   blockNeeds,
@@ -36,9 +35,8 @@ export interface BlockPlanInput {
   assignment?: readonly (readonly string[])[];
 }
 
-export interface PlannedTerminal extends ScheduleTerminal {
-  note: string;
-}
+/** A terminal of the plan; `note` marks the joints that involve the driver lead or a link. */
+export type PlannedTerminal = ScheduleTerminal;
 
 export interface PlannedBlock extends ScheduleBlock {
   /** 1-based, the same as its position in `blocks`. */
@@ -63,7 +61,7 @@ export interface PlannedLink {
   cores: 2;
   /** Carries the string on to the next block. */
   forwardCore: 1;
-  /** Carries the return leg back towards the driver's −. */
+  /** Carries the return leg back towards the driver's -. */
   returnCore: 2;
 }
 
@@ -78,11 +76,6 @@ export interface BlockPlan extends TerminalSchedule {
   findings: Finding[];
 }
 
-type Ends = ConductorEnd[];
-const fit = (k: number, polarity: '+' | '-'): ConductorEnd => ({ kind: 'fitting', fitting: k, polarity });
-const core = (link: number, c: 1 | 2, end: 'A' | 'B'): ConductorEnd => ({ kind: 'link', link, core: c, end });
-const DRIVER_PLUS: ConductorEnd = { kind: 'driver', polarity: '+' };
-const DRIVER_MINUS: ConductorEnd = { kind: 'driver', polarity: '-' };
 
 export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
   const findings: Finding[] = [];
@@ -114,38 +107,32 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
   const blocks: PlannedBlock[] = [];
   const links: PlannedLink[] = [];
   const m = groups.length;
-  const text = (e: ConductorEnd): string => formatConductorEnd(e);
 
   for (let j = 1; j <= m; j++) {
     const group = groups[j - 1]!;
     const a = group[0]!;
     const b = group[group.length - 1]!;
     const last = j === m;
-    const lands: { ends: Ends; note: string }[] = [];
+    const terminals: PlannedTerminal[] = [];
     const fromDriver = j === 1;
-    lands.push({
-      ends: [fromDriver ? DRIVER_PLUS : core(j - 1, 1, 'B'), fit(a, '+')],
-      note: fromDriver ? `driver + to fitting ${a} +` : `string in from block ${j - 1} to fitting ${a} +`,
-    });
-    for (let k = a; k < b; k++) {
-      lands.push({ ends: [fit(k, '-'), fit(k + 1, '+')], note: `fitting ${k} − to fitting ${k + 1} +` });
-    }
-    const returnIn = fromDriver ? DRIVER_MINUS : core(j - 1, 2, 'B');
+    terminals.push(
+      fromDriver
+        ? { conductors: ['driver+', `fitting:${a}+`], note: 'driver + to the first fitting' }
+        : { conductors: [`link:${j - 1}/core:1/end:B`, `fitting:${a}+`], note: `string in from block ${j - 1}` },
+    );
+    for (let k = a; k < b; k++) terminals.push({ conductors: [`fitting:${k}-`, `fitting:${k + 1}+`] });
+    const returnIn = fromDriver ? 'driver-' : `link:${j - 1}/core:2/end:B`;
     if (last) {
-      lands.push({ ends: [fit(b, '-'), returnIn], note: `last fitting − returns to driver −` });
+      terminals.push({ conductors: [`fitting:${b}-`, returnIn], note: 'last fitting - returns to driver -' });
     } else {
-      lands.push({ ends: [fit(b, '-'), core(j, 1, 'A')], note: `fitting ${b} − on to block ${j + 1}` });
-      lands.push({ ends: [returnIn, core(j, 2, 'A')], note: `return leg to driver − passing through` });
+      terminals.push({ conductors: [`fitting:${b}-`, `link:${j}/core:1/end:A`], note: `string on to block ${j + 1}` });
+      terminals.push({ conductors: [returnIn, `link:${j}/core:2/end:A`], note: 'return leg to driver -, passing through' });
     }
 
     const cables: EntryCable[] = [];
-    cables.push(
-      fromDriver
-        ? { cable: 'driver-lead', description: 'driver lead', ref: input.string.driverLead }
-        : { cable: `link:${j - 1}`, description: `link cable ${j - 1}`, ref: linkRef },
-    );
-    for (const k of group) cables.push({ cable: `fitting:${k}`, description: `fitting ${k} tail`, ref: fittings[k - 1]?.tail });
-    if (!last) cables.push({ cable: `link:${j}`, description: `link cable ${j}`, ref: linkRef });
+    cables.push(fromDriver ? { cable: 'driver-lead', ref: input.string.driverLead } : { cable: `link:${j - 1}`, ref: linkRef });
+    for (const k of group) cables.push({ cable: `fitting:${k}`, ref: fittings[k - 1]?.tail });
+    if (!last) cables.push({ cable: `link:${j}`, ref: linkRef });
 
     blocks.push({
       number: j,
@@ -154,8 +141,8 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
       ipCode: type.ipCode,
       conductorsPerTerminal: type.conductorsPerTerminal,
       fittings: group,
-      terminals: lands.map((l) => ({ conductors: l.ends.map(text), note: l.note })),
-      spareTerminals: type.terminals - lands.length,
+      terminals,
+      spareTerminals: type.terminals - terminals.length,
       entries: planEntries(j, type, cables, findings),
     });
     if (!last) links.push({ number: j, fromBlock: j, toBlock: j + 1, lengthM: null, cores: 2, forwardCore: 1, returnCore: 2 });
@@ -193,7 +180,7 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
     },
     findings,
   };
-  plan.steps = installerSteps(plan, (e) => describeConductorEnd(e, labels));
+  plan.steps = installerSteps(plan, labels);
   return plan;
 }
 
@@ -403,21 +390,19 @@ function linkLength(ref: (BlockCableRef & { lengthsM?: readonly number[] }) | un
 function checkConductorSizes(input: BlockPlanInput, type: ConnectorBlockType, findings: Finding[]): void {
   const range = type.terminalRangeMm2;
   if (!range) return;
-  const cables: [string, string, BlockCableRef | undefined][] = [
-    ['driver lead', 'driver', input.string.driverLead],
-    ['link cable', 'link', input.string.linkCable],
-    ...input.string.fittings.map((f, i): [string, string, BlockCableRef | undefined] => [`fitting ${i + 1} tail`, `fitting:${i + 1}`, f?.tail]),
-  ];
-  for (const [what, subject, ref] of cables) {
+  const check = (ref: BlockCableRef | undefined, what: () => string, subject: () => string) => {
     const mm2 = ref?.conductorMm2;
-    if (mm2 === undefined || (mm2 >= range.min && mm2 <= range.max)) continue;
+    if (mm2 === undefined || (mm2 >= range.min && mm2 <= range.max)) return;
     findings.push(
       finding(
         'conductor-outside-terminal-range',
         'error',
-        `The ${what} has ${mm2} mm² conductors; block type ${type.name}'s terminals clamp ${range.min}-${range.max} mm².`,
-        { subject, values: { conductorMm2: mm2, minMm2: range.min, maxMm2: range.max } },
+        `The ${what()} has ${mm2} mm² conductors; block type ${type.name}'s terminals clamp ${range.min}-${range.max} mm².`,
+        { subject: subject(), values: { conductorMm2: mm2, minMm2: range.min, maxMm2: range.max } },
       ),
     );
-  }
+  };
+  check(input.string.driverLead, () => 'driver lead', () => 'driver');
+  check(input.string.linkCable, () => 'link cable', () => 'link');
+  input.string.fittings.forEach((f, i) => check(f?.tail, () => `fitting ${i + 1} tail`, () => `fitting:${i + 1}`));
 }

@@ -17,7 +17,7 @@ export interface StringFittingRef {
   /** Used by an assignment; defaults to the fitting's 1-based position ("1", "2", ...). */
   id?: string;
   label?: string;
-  /** The fitting's two-core tail (its + and − conductors). */
+  /** The fitting's two-core tail (its + and - conductors). */
   tail?: BlockCableRef;
 }
 

@@ -11,8 +11,6 @@ export type EntryFit = 'seal' | 'seal-with-reducer' | 'too-large' | 'size-unknow
 export interface EntryUse {
   /** `driver-lead`, `fitting:3` (its tail) or `link:2`. */
   cable: string;
-  /** Plain words, e.g. "fitting 3 tail". */
-  description: string;
   outerDiameterMm: number | null;
   fit: EntryFit;
 }
@@ -32,7 +30,6 @@ export interface BlockEntries {
 
 export interface EntryCable {
   cable: string;
-  description: string;
   ref: BlockCableRef | undefined;
 }
 
@@ -58,15 +55,23 @@ export function planEntries(
         finding(
           'cable-too-large-for-entry',
           'error',
-          `The ${c.description} (${d} mm across) is too thick for an entry of block ${blockNumber}, which seals ` +
+          `The ${describeCable(c.cable)} (${d} mm across) is too thick for an entry of block ${blockNumber}, which seals ` +
             `${range!.min}-${range!.max} mm. Choose a block with larger entries.`,
           { subject: `block:${blockNumber}`, values: { outerDiameterMm: d!, entryMaxMm: range!.max } },
         ),
       );
     }
-    uses.push({ cable: c.cable, description: c.description, outerDiameterMm: d ?? null, fit });
+    uses.push({ cable: c.cable, outerDiameterMm: d ?? null, fit });
   }
   const used = cables.length;
   const spare = Math.max(0, type.cableEntries - used);
   return { total: type.cableEntries, used, spare, seals: used, reducers, blankingPlugs: spare, cables: uses };
+}
+
+/** Plain words for an entry's cable id: "driver lead", "fitting 3 tail", "link cable 2". */
+export function describeCable(cable: string): string {
+  if (cable === 'driver-lead') return 'driver lead';
+  if (cable.startsWith('fitting:')) return `fitting ${cable.slice(8)} tail`;
+  if (cable.startsWith('link:')) return `link cable ${cable.slice(5)}`;
+  return cable;
 }

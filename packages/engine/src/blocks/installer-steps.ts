@@ -1,8 +1,9 @@
 /**
  * The installer's step list for a block plan, in the order the work is done, in plain words.
  */
-import { parseConductorEnd, type ConductorEnd } from '../wiring/conductor-id';
+import { parseConductorEnd } from '../wiring/conductor-id';
 import type { BlockPlan } from './block-plan';
+import { describeCable, type EntryUse } from './entry-seals';
 
 export interface InstallerStep {
   /** The block the step is about, or null for the whole circuit. */
@@ -10,9 +11,13 @@ export interface InstallerStep {
   text: string;
 }
 
-export function installerSteps(plan: BlockPlan, say: (end: ConductorEnd) => string): InstallerStep[] {
+/**
+ * Step texts are joined from parts rather than concatenated: a schedule of thousands of
+ * terminals then holds compact flat strings, not chains of fragments.
+ */
+export function installerSteps(plan: BlockPlan, labels: readonly string[]): InstallerStep[] {
   const steps: InstallerStep[] = [];
-  const add = (block: number | null, text: string) => steps.push({ block, text });
+  const add = (block: number | null, ...parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
   add(
     null,
     "Switch off and isolate the driver's supply before you start. Mains-side work, protective devices and " +
@@ -20,33 +25,68 @@ export function installerSteps(plan: BlockPlan, say: (end: ConductorEnd) => stri
       'extra-low-voltage side.',
   );
   for (const block of plan.blocks) {
-    add(block.number, `Mount block ${block.number} (${block.blockType}, ${block.ipCode}) near ${fittingRange(block.fittings)}.`);
+    add(block.number, 'Mount block ', block.number, ' (', block.blockType, ', ', block.ipCode, ') near ', fittingRange(block.fittings), '.');
   }
   for (const link of plan.links) {
-    const length = link.lengthM === null ? 'length to be measured' : `${link.lengthM} m`;
     add(
       null,
-      `Lay link cable ${link.number} (two-core, ${length}) from block ${link.fromBlock} to block ${link.toBlock}. ` +
-        `Core ${link.forwardCore} carries the string on; core ${link.returnCore} carries the return back to the driver −.`,
+      'Lay link cable ',
+      link.number,
+      ' (two-core, ',
+      link.lengthM === null ? 'length to be measured' : `${link.lengthM} m`,
+      ') from block ',
+      link.fromBlock,
+      ' to block ',
+      link.toBlock,
+      '. Core ',
+      link.forwardCore,
+      ' carries the string on; core ',
+      link.returnCore,
+      ' carries the return back to the driver -.',
     );
   }
+  const fittingNames = labels.map((label, i) => `fitting ${i + 1} (${label})`);
+  const parts: (string | number)[] = [];
+  const describe = (text: string): void => {
+    const end = parseConductorEnd(text);
+    if (!end) parts.push(text);
+    else if (end.kind === 'fitting') parts.push(fittingNames[end.fitting - 1] ?? `fitting ${end.fitting}`, SIGN[end.polarity]);
+    else if (end.kind === 'driver') parts.push('driver lead', SIGN[end.polarity]);
+    else parts.push('link cable ', end.link, ' core ', end.core, ' (end ', end.end, ')');
+  };
   for (const block of plan.blocks) {
     const e = block.entries;
-    const names = e.cables.map((c) => c.description);
-    let seals = `Bring ${e.used} cable${e.used === 1 ? '' : 's'} into block ${block.number} (${e.total} entries) and seal each entry`;
-    if (e.reducers > 0) seals += `, with a reducer on the ${e.reducers} thinner cable${e.reducers === 1 ? '' : 's'}`;
-    if (e.blankingPlugs > 0) seals += `; fit blanking plugs in the ${e.blankingPlugs} spare entr${e.blankingPlugs === 1 ? 'y' : 'ies'}`;
-    seals += `: ${list(names)}.`;
-    add(block.number, seals);
+    const cables = e.used === 1 ? ' cable' : ' cables';
+    const plugs = e.blankingPlugs === 1 ? ' spare entry' : ' spare entries';
+    add(
+      block.number,
+      'Bring ',
+      e.used,
+      cables,
+      ' into block ',
+      block.number,
+      ' (',
+      e.total,
+      ' entries) and seal each entry',
+      e.reducers > 0 ? `, with a reducer on the ${e.reducers} thinner cable${e.reducers === 1 ? '' : 's'}` : '',
+      e.blankingPlugs > 0 ? `; fit blanking plugs in the ${e.blankingPlugs}${plugs}` : '',
+      ': ',
+      cableList(block.fittings, e.cables),
+      '.',
+    );
     block.terminals.forEach((t, i) => {
-      const ends = t.conductors.map((c) => {
-        const end = parseConductorEnd(c);
-        return end ? say(end) : c;
+      parts.length = 0;
+      parts.push('Block ', block.number, ' terminal ', i + 1, ': land ');
+      t.conductors.forEach((c, ci) => {
+        if (ci > 0) parts.push(ci === t.conductors.length - 1 ? ' and ' : ', ');
+        describe(c);
       });
-      add(block.number, `Block ${block.number} terminal ${i + 1}: land ${list(ends)} (${t.note}).`);
+      parts.push(t.note ? ` (${t.note}).` : '.');
+      add(block.number, ...parts);
     });
     if (block.spareTerminals > 0) {
-      add(block.number, `Leave block ${block.number}'s other ${block.spareTerminals} terminal${block.spareTerminals === 1 ? '' : 's'} empty.`);
+      const s = block.spareTerminals === 1 ? '' : 's';
+      add(block.number, 'Leave block ', block.number, "'s other ", block.spareTerminals, ' terminal', s, ' empty.');
     }
   }
   add(
@@ -55,6 +95,17 @@ export function installerSteps(plan: BlockPlan, say: (end: ConductorEnd) => stri
       'In a series string one open joint leaves every fitting dark, and a reversed fitting stays dark.',
   );
   return steps;
+}
+
+const SIGN = { '+': ' +', '-': ' -' } as const;
+
+/** "driver lead, tails of fittings 1-4 and link cable 1". */
+function cableList(fittings: readonly number[], cables: readonly EntryUse[]): string {
+  const names: string[] = [];
+  for (const c of cables) if (!c.cable.startsWith('fitting:')) names.push(describeCable(c.cable));
+  const tails = fittings.length === 1 ? `tail of fitting ${fittings[0]}` : `tails of ${fittingRange(fittings)}`;
+  names.splice(1, 0, tails);
+  return list(names);
 }
 
 function fittingRange(fittings: readonly number[]): string {

@@ -17,29 +17,100 @@ export type ConductorEnd =
   | { kind: 'fitting'; fitting: number; polarity: EndPolarity }
   | { kind: 'link'; link: number; core: number; end: 'A' | 'B' };
 
-const DRIVER = /^driver([+-])$/;
-const FITTING = /^fitting:(\d{1,9})([+-])$/;
-const LINK = /^link:(\d{1,9})\/core:(\d{1,9})\/end:([ab])$/;
-
 /** Parse a conductor end; `null` when the text is not one of the three forms. */
 export function parseConductorEnd(text: string): ConductorEnd | null {
-  if (typeof text !== 'string') return null;
-  const t = text.toLowerCase().replace(/[\u2212\u2013]/g, '-').replace(/\s+/g, '');
-  let m = DRIVER.exec(t);
-  if (m) return { kind: 'driver', polarity: m[1] as EndPolarity };
-  m = FITTING.exec(t);
-  if (m) {
-    const fitting = Number(m[1]);
-    return fitting >= 1 ? { kind: 'fitting', fitting, polarity: m[2] as EndPolarity } : null;
+  const s = scratch;
+  if (!scanConductorEnd(text, s)) return null;
+  const polarity: EndPolarity = s.minus ? '-' : '+';
+  if (s.kind === 'driver') return { kind: 'driver', polarity };
+  if (s.kind === 'fitting') return { kind: 'fitting', fitting: s.fitting, polarity };
+  return { kind: 'link', link: s.link, core: s.core, end: s.endB ? 'B' : 'A' };
+}
+
+/** What `scanConductorEnd` found; one object reused across calls in hot loops. */
+export interface ConductorScan {
+  kind: 'driver' | 'fitting' | 'link';
+  fitting: number;
+  minus: boolean;
+  link: number;
+  core: number;
+  endB: boolean;
+  /** The text was already in canonical form. */
+  canonical: boolean;
+}
+
+export function newConductorScan(): ConductorScan {
+  return { kind: 'driver', fitting: 0, minus: false, link: 0, core: 0, endB: false, canonical: true };
+}
+
+const scratch = newConductorScan();
+
+/**
+ * Read a conductor end into `out` without allocating when the text is canonical (what the
+ * generator writes); other spellings are normalised first. False when unreadable.
+ */
+export function scanConductorEnd(text: string, out: ConductorScan): boolean {
+  if (typeof text !== 'string') return false;
+  out.canonical = scanCanonical(text, out);
+  return out.canonical || scanCanonical(text.toLowerCase().replace(/[\u2212\u2013]/g, '-').replace(/\s+/g, ''), out);
+}
+
+const CODE_0 = 48;
+const CODE_9 = 57;
+const CODE_PLUS = 43;
+const CODE_MINUS = 45;
+
+let digitsEnd = 0;
+
+/** Digits from `from` to the next non-digit (end index left in `digitsEnd`); -1 when none or too many. */
+function digits(t: string, from: number): number {
+  let i = from;
+  let value = 0;
+  while (i < t.length) {
+    const c = t.charCodeAt(i);
+    if (c < CODE_0 || c > CODE_9) break;
+    value = value * 10 + (c - CODE_0);
+    i++;
   }
-  m = LINK.exec(t);
-  if (m) {
-    const link = Number(m[1]);
-    const core = Number(m[2]);
-    if (link < 1 || core < 1) return null;
-    return { kind: 'link', link, core, end: m[3] === 'a' ? 'A' : 'B' };
+  digitsEnd = i;
+  return i === from || i - from > 9 ? -1 : value;
+}
+
+/** The polarity sign as the last character at `i`: sets `out.minus`; false when absent. */
+function polarityAt(t: string, i: number, out: ConductorScan): boolean {
+  if (i !== t.length - 1) return false;
+  const c = t.charCodeAt(i);
+  out.minus = c === CODE_MINUS;
+  return c === CODE_MINUS || c === CODE_PLUS;
+}
+
+function scanCanonical(t: string, out: ConductorScan): boolean {
+  if (t.startsWith('fitting:')) {
+    const fitting = digits(t, 8);
+    if (fitting < 1) return false;
+    out.kind = 'fitting';
+    out.fitting = fitting;
+    return polarityAt(t, digitsEnd, out);
   }
-  return null;
+  if (t.startsWith('driver')) {
+    out.kind = 'driver';
+    return polarityAt(t, 6, out);
+  }
+  if (t.startsWith('link:')) {
+    const link = digits(t, 5);
+    if (link < 1 || !t.startsWith('/core:', digitsEnd)) return false;
+    const core = digits(t, digitsEnd + 6);
+    const at = digitsEnd;
+    if (core < 1 || !t.startsWith('/end:', at) || at + 6 !== t.length) return false;
+    const e = t[at + 5];
+    if (e !== 'A' && e !== 'a' && e !== 'B' && e !== 'b') return false;
+    out.kind = 'link';
+    out.link = link;
+    out.core = core;
+    out.endB = e === 'B' || e === 'b';
+    return true;
+  }
+  return false;
 }
 
 /** The canonical text of a conductor end (what the schedule generator writes). */
@@ -54,20 +125,16 @@ export function formatConductorEnd(end: ConductorEnd): string {
   }
 }
 
-/** Plain words for a conductor end, e.g. "fitting 3 −" or "link cable 2 core 1 (end A)". */
+/** Plain words for a conductor end, e.g. "fitting 3 -" or "link cable 2 core 1 (end A)". */
 export function describeConductorEnd(end: ConductorEnd, fittingLabels?: readonly string[]): string {
   switch (end.kind) {
     case 'driver':
-      return `driver lead ${sign(end.polarity)}`;
+      return `driver lead ${end.polarity}`;
     case 'fitting': {
       const label = fittingLabels?.[end.fitting - 1];
-      return `fitting ${end.fitting}${label ? ` (${label})` : ''} ${sign(end.polarity)}`;
+      return `fitting ${end.fitting}${label ? ` (${label})` : ''} ${end.polarity}`;
     }
     case 'link':
       return `link cable ${end.link} core ${end.core} (end ${end.end})`;
   }
-}
-
-function sign(p: EndPolarity): string {
-  return p === '+' ? '+' : '−';
 }

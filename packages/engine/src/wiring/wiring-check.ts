@@ -7,10 +7,10 @@
  * a set of terminals joined by cores. The driver and the fittings are the two-ended
  * elements between nodes. Then:
  *
- * - constant current: one series loop, driver + -> fitting + ... fitting − -> next fitting
- *   + ... -> driver −, every fitting met at its + first (forward-biased). Constant-current
+ * - constant current: one series loop, driver + -> fitting + ... fitting - -> next fitting
+ *   + ... -> driver -, every fitting met at its + first (forward-biased). Constant-current
  *   fittings go in series on one driver, never in parallel (common practice).
- * - constant voltage: every fitting straight across the supply, + to + and − to −
+ * - constant voltage: every fitting straight across the supply, + to + and - to -
  *   (constant-voltage fittings are wired in parallel, common practice).
  *
  * Anything else is reported with where it is. The verdict depends only on which element
@@ -18,7 +18,7 @@
  * counts and the ends missing, repeated or unreadable; `nodes` returns that partition.
  */
 import { finding, hasErrors, type Finding } from '../findings';
-import { describeConductorEnd, formatConductorEnd, parseConductorEnd, type ConductorEnd } from './conductor-id';
+import { describeConductorEnd, formatConductorEnd, newConductorScan, scanConductorEnd, type ConductorEnd } from './conductor-id';
 import type { WiringKind, TerminalSchedule } from './terminal-schedule';
 import { UnionFind } from './union-find';
 
@@ -42,12 +42,7 @@ export interface WiringCheckResult {
 
 const NONE = -1;
 
-/** Element end index: driver+ 0, driver− 1, fitting k + 2k, fitting k − 2k+1. */
-function elementIndex(end: ConductorEnd & { kind: 'driver' | 'fitting' }): number {
-  const base = end.kind === 'driver' ? 0 : 2 * end.fitting;
-  return base + (end.polarity === '+' ? 0 : 1);
-}
-
+/** Element end index: driver+ 0, driver- 1, fitting k + 2k, fitting k - 2k+1. */
 function elementEnd(index: number): ConductorEnd {
   const polarity = (index & 1) === 0 ? '+' : '-';
   return index < 2 ? { kind: 'driver', polarity } : { kind: 'fitting', fitting: index >> 1, polarity };
@@ -76,8 +71,10 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
   const termBlock: number[] = [];
   const termNumber: number[] = [];
   const endTerminal = new Int32Array(2 * n + 2).fill(NONE);
+  const endText: string[] = new Array<string>(2 * n + 2);
   const repeats = new Map<number, number[]>(); // element end -> every terminal it lands on
-  const linkEnds = new Map<string, { link: number; core: number; a: number[]; b: number[] }>();
+  const linkEnds = new Map<number | string, { link: number; core: number; a: number[]; b: number[] }>();
+  const scan = newConductorScan();
   const unknownFittings = new Map<number, number[]>();
 
   schedule.blocks.forEach((block, bi) => {
@@ -98,8 +95,7 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
         );
       }
       for (const text of terminal.conductors) {
-        const end = parseConductorEnd(text);
-        if (!end) {
+        if (!scanConductorEnd(text, scan)) {
           findings.push(
             finding(
               'conductor-unrecognised',
@@ -111,22 +107,25 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
           );
           continue;
         }
-        if (end.kind === 'link') {
-          const key = `${end.link}/${end.core}`;
+        if (scan.kind === 'link') {
+          const { link, core } = scan;
+          const key = link < 1e6 && core < 1e6 ? link * 1e6 + core : `${link}/${core}`;
           let rec = linkEnds.get(key);
-          if (!rec) linkEnds.set(key, (rec = { link: end.link, core: end.core, a: [], b: [] }));
-          (end.end === 'A' ? rec.a : rec.b).push(t);
+          if (!rec) linkEnds.set(key, (rec = { link, core, a: [], b: [] }));
+          (scan.endB ? rec.b : rec.a).push(t);
           continue;
         }
-        if (end.kind === 'fitting' && end.fitting > n) {
-          const at = unknownFittings.get(end.fitting) ?? [];
+        if (scan.kind === 'fitting' && scan.fitting > n) {
+          const at = unknownFittings.get(scan.fitting) ?? [];
           at.push(t);
-          unknownFittings.set(end.fitting, at);
+          unknownFittings.set(scan.fitting, at);
           continue;
         }
-        const e = elementIndex(end);
-        if (endTerminal[e] === NONE) endTerminal[e] = t;
-        else {
+        const e = (scan.kind === 'driver' ? 0 : 2 * scan.fitting) + (scan.minus ? 1 : 0);
+        if (endTerminal[e] === NONE) {
+          endTerminal[e] = t;
+          if (scan.canonical) endText[e] = text;
+        } else {
           const at = repeats.get(e) ?? [endTerminal[e]!];
           at.push(t);
           repeats.set(e, at);
@@ -288,14 +287,13 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
     firstTerminal.set(r, first);
   }
   const roots = [...nodeEnds.keys()].sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
+  const byLanding = (x: number, y: number) => endTerminal[x]! - endTerminal[y]! || x - y;
   for (const r of roots) {
+    const ends = nodeEnds.get(r)!;
+    const order = ends.length === 2 ? (byLanding(ends[0]!, ends[1]!) <= 0 ? ends : [ends[1]!, ends[0]!]) : [...ends].sort(byLanding);
     nodes.push({
       terminals: terminalsOf(r).map(subjectOf),
-      ends: nodeEnds
-        .get(r)!
-        .slice()
-        .sort((x, y) => endTerminal[x]! - endTerminal[y]! || x - y)
-        .map((e) => formatConductorEnd(elementEnd(e))),
+      ends: order.map((e) => endText[e] ?? formatConductorEnd(elementEnd(e))),
     });
   }
 
@@ -330,7 +328,7 @@ function reportShortAndBypass(a: Analysis): void {
       finding(
         'short-across-driver',
         'error',
-        `The driver's + and − meet at ${a.nodeAt(nodeOf[0]!)}: a short circuit across the driver output.`,
+        `The driver's + and - meet at ${a.nodeAt(nodeOf[0]!)}: a short circuit across the driver output.`,
         { subject: 'driver' },
       ),
     );
@@ -341,7 +339,7 @@ function reportShortAndBypass(a: Analysis): void {
         finding(
           'fitting-bypassed',
           'error',
-          `Fitting ${k}'s + and − are on the same node (${a.nodeAt(nodeOf[2 * k]!)}), so it is bypassed and ` +
+          `Fitting ${k}'s + and - are on the same node (${a.nodeAt(nodeOf[2 * k]!)}), so it is bypassed and ` +
             'will not light.',
           { subject: `fitting:${k}` },
         ),
@@ -350,7 +348,7 @@ function reportShortAndBypass(a: Analysis): void {
   }
 }
 
-/** Constant current: one loop from driver + through every fitting, + first, to driver −. */
+/** Constant current: one loop from driver + through every fitting, + first, to driver -. */
 function analyseSeries(a: Analysis): number[] | null {
   const { n, nodeOf, findings } = a;
   reportShortAndBypass(a);
@@ -433,7 +431,7 @@ function analyseSeries(a: Analysis): number[] | null {
     }
   }
 
-  // Walk the loop from driver + forwards and from driver − backwards.
+  // Walk the loop from driver + forwards and from driver - backwards.
   const visited = new Uint8Array(n + 1);
   const reversed: number[] = [];
   const order: number[] = [];
@@ -463,7 +461,7 @@ function analyseSeries(a: Analysis): number[] | null {
       finding(
         'fitting-reversed',
         'error',
-        `Fitting ${k} is reversed: the current reaches its − (${a.endAt(2 * k + 1)}) before its + ` +
+        `Fitting ${k} is reversed: the current reaches its - (${a.endAt(2 * k + 1)}) before its + ` +
           `(${a.endAt(2 * k)}). Swap its two conductors; an LED does not light backwards.`,
         { subject: `fitting:${k}` },
       ),
@@ -487,7 +485,7 @@ function analyseSeries(a: Analysis): number[] | null {
         'fittings-outside-loop',
         'error',
         `Fitting${outside.length === 1 ? '' : 's'} ${list(outside)} ${outside.length === 1 ? 'is' : 'are'} not on ` +
-          "the path from the driver's + to its −" +
+          "the path from the driver's + to its -" +
           (ownLoop ? ': they form a closed loop of their own and will not light.' : ' and will not light.'),
         { subject: `fitting:${outside[0]}`, values: { fittings: outside.join(',') } },
       ),
@@ -496,7 +494,7 @@ function analyseSeries(a: Analysis): number[] | null {
 
   if (!closed && !hasErrors(findings)) {
     findings.push(
-      finding('open-circuit', 'error', "The circuit does not return from the driver's + to its −.", {
+      finding('open-circuit', 'error', "The circuit does not return from the driver's + to its -.", {
         subject: 'driver',
       }),
     );
@@ -504,7 +502,7 @@ function analyseSeries(a: Analysis): number[] | null {
   return closed && order.length === n && reversed.length === 0 ? order : null;
 }
 
-/** Constant voltage: every fitting straight across the supply, + to +, − to −. */
+/** Constant voltage: every fitting straight across the supply, + to +, - to -. */
 function analyseParallel(a: Analysis): void {
   const { n, nodeOf, nodeEnds, findings } = a;
   reportShortAndBypass(a);
@@ -524,7 +522,7 @@ function analyseParallel(a: Analysis): void {
         finding(
           'fitting-reversed',
           'error',
-          `Fitting ${k} is reversed: its + (${a.endAt(2 * k)}) is on the supply's − and its − ` +
+          `Fitting ${k} is reversed: its + (${a.endAt(2 * k)}) is on the supply's - and its - ` +
             `(${a.endAt(2 * k + 1)}) on the supply's +. Swap its two conductors.`,
           { subject: `fitting:${k}` },
         ),
@@ -543,7 +541,7 @@ function analyseParallel(a: Analysis): void {
           'fittings-in-series',
           'error',
           `Fittings ${list(fittingsHere)} are joined in series at ${a.nodeAt(root)}. On a constant-voltage ` +
-            "supply each fitting goes straight across the supply's + and − (common practice).",
+            "supply each fitting goes straight across the supply's + and - (common practice).",
           { subject: `fitting:${fittingsHere[0]}`, values: { fittings: fittingsHere.join(',') } },
         ),
       );
@@ -595,14 +593,16 @@ function shapeProblem(s: TerminalSchedule): string | null {
     return 'The schedule must say how many fittings the circuit has (a whole number).';
   }
   if (!Array.isArray(s.blocks)) return 'The schedule has no list of blocks.';
-  for (const [bi, b] of s.blocks.entries()) {
+  for (let bi = 0; bi < s.blocks.length; bi++) {
+    const b = s.blocks[bi];
     if (typeof b !== 'object' || b === null || !Array.isArray(b.terminals)) {
       return `Block ${bi + 1} has no list of terminals.`;
     }
     if (b.conductorsPerTerminal !== undefined && !(Number.isInteger(b.conductorsPerTerminal) && b.conductorsPerTerminal >= 1)) {
       return `Block ${bi + 1}'s conductors per terminal must be a whole number of at least 1.`;
     }
-    for (const [ti, t] of b.terminals.entries()) {
+    for (let ti = 0; ti < b.terminals.length; ti++) {
+      const t = b.terminals[ti];
       if (typeof t !== 'object' || t === null || !Array.isArray(t.conductors)) {
         return `Block ${bi + 1} terminal ${ti + 1} has no list of conductors.`;
       }
