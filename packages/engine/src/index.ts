@@ -48,3 +48,4 @@ export { checkWiring, type WiringCheckResult, type WiringNode } from './wiring/w
 export * from './money';
 export * from './takeoff';
 export * from './labour';
+export * from './cv';

@@ -1,0 +1,2 @@
+export * from './cv-types';
+export * from './parallel-run';
