@@ -13,6 +13,7 @@ import { organizationRouter } from './modules/organization/router';
 import { passwordResetRouter } from './modules/password-resets/router';
 import { sessionRouter } from './modules/session/router';
 import { teamRouters } from './modules/team/router';
+import { quoteBodyParser, quotesRouter } from './modules/quotes/router';
 
 export interface CreateAppOptions extends AppDeps {
   /** Built front ends to serve; omitted in api-only tests. */
@@ -73,6 +74,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   }
 
   const api = express.Router();
+  api.use('/api/quotes', quoteBodyParser); // whole estimates are larger than 1 MB
   api.use(express.json({ limit: '1mb' }));
   api.use(checkOrigin([new URL(options.config.publicUrl).host]));
   api.use((_req, res, next) => {
@@ -90,6 +92,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   for (const r of teamRouters(deps, routes)) api.use(r);
   api.use(passwordResetRouter(deps, routes));
   api.use(organizationRouter(deps, routes));
+  api.use(quotesRouter(deps, routes));
   api.use('/api', apiNotFound);
   app.use(api);
 

@@ -9,10 +9,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '@gloaming/contracts';
 import type { RegisteredRoute } from '../src/http/routes';
 import { startTestServer, type TestServer } from './harness';
+import { createQuoteFixture } from './quote-fixtures';
 
 let t: TestServer;
+let quoteA: string;
+let quoteB: string;
 beforeAll(async () => {
   t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
+  quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
+  quoteB = (await createQuoteFixture(t.orm.em.fork(), t.firmB)).quote.id;
 });
 afterAll(async () => t.close());
 
@@ -44,6 +49,8 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
   if (route.params.length === 0) return { own: {}, foreign: {} };
   if (route.path.startsWith('/api/users/:id'))
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
+  if (route.path.startsWith('/api/quotes/:id'))
+    return { own: { id: quoteA, revisionNumber: '1' }, foreign: { id: quoteB, revisionNumber: '1' } };
   throw new Error(`route-matrix: add fixtures for the path parameters of ${route.method.toUpperCase()} ${route.path}`);
 }
 
@@ -85,6 +92,13 @@ describe('route x role x firm matrix', () => {
       'POST /api/password-resets': 'public',
       'POST /api/password-resets/complete': 'public',
       'GET /api/organization': 'owner,estimator,installer',
+      'GET /api/quotes': 'owner,estimator',
+      'POST /api/quotes': 'owner,estimator',
+      'GET /api/quotes/:id': 'owner,estimator',
+      'POST /api/quotes/:id/revisions': 'owner,estimator',
+      'GET /api/quotes/:id/revisions/:revisionNumber': 'owner,estimator',
+      'PUT /api/quotes/:id/revisions/:revisionNumber': 'owner,estimator',
+      'GET /api/quotes/:id/events': 'owner,estimator',
     });
   });
 

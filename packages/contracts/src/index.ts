@@ -6,3 +6,4 @@ export * from './estimate';
 export * from './customers';
 export * from './catalogue';
 export * from './price-list-import';
+export * from './quotes';

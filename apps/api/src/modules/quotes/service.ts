@@ -1,0 +1,312 @@
+/**
+ * Quotes and their revisions: the small service other modules build on (sending, the PDF, the
+ * portal, payments). Every loader is scoped to a firm; another firm's id is a 404.
+ *
+ * Exported API:
+ * - loadQuoteForFirm(em, organizationId, id)     the quote with customer, site and estimator, or 404
+ * - currentRevision(em, quote)                   the newest revision (there is always one)
+ * - loadRevision(em, quote, number)              one revision by number, or 404
+ * - revisionContent(revision) / revisionSettings(revision)   the JSON parsed with the contracts
+ * - priceRevision(content, settings)             the engine's totals for a document
+ * - appendQuoteEvent(em, quote, type, actor, data?, revision?)  history + status (persisted, not flushed)
+ * - markRevisionSent(em, quote, revision, actor) freeze a draft when it is sent (async; persisted, not flushed)
+ */
+import { createHash } from 'node:crypto';
+import {
+  EstimateContent,
+  RevisionSettings,
+  estimateQuoteInput,
+  type CreateQuoteRequest,
+  type QuoteEventType,
+  type QuoteStatus,
+  type RevisionTotals,
+} from '@gloaming/contracts';
+import {
+  Customer,
+  Organization,
+  Quote,
+  QuoteEvent,
+  QuoteRevision,
+  Site,
+  User,
+  UniqueConstraintViolationException,
+  newId,
+  type EntityManager,
+} from '@gloaming/db';
+import { computeQuoteTotals, isEngineInputError, type QuoteTotals } from '@gloaming/engine';
+import { badRequest, conflict, notFound } from '../../http/problem';
+
+export type Actor = { id: string } | null;
+
+/** The quote (customer, site and estimator loaded) if it belongs to the firm; 404 otherwise. */
+export async function loadQuoteForFirm(em: EntityManager, organizationId: string, id: string): Promise<Quote> {
+  const quote = await em.findOne(Quote, { id, organization: organizationId }, { populate: ['customer', 'site', 'estimator', 'organization'] });
+  if (!quote) throw notFound('That quote');
+  return quote;
+}
+
+/** The newest revision of a quote. */
+export async function currentRevision(em: EntityManager, quote: Quote): Promise<QuoteRevision> {
+  const revision = await em.findOne(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
+  if (!revision) throw notFound('That quote revision');
+  return revision;
+}
+
+export async function loadRevision(em: EntityManager, quote: Quote, number: number): Promise<QuoteRevision> {
+  const revision = await em.findOne(QuoteRevision, { quote: quote.id, number });
+  if (!revision) throw notFound(`Revision ${number} of this quote`);
+  return revision;
+}
+
+export async function listRevisions(em: EntityManager, quote: Quote): Promise<QuoteRevision[]> {
+  return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
+}
+
+/** The stored estimate document; stored JSON that no longer parses is a server fault, said plainly. */
+export function revisionContent(revision: QuoteRevision): EstimateContent {
+  const parsed = EstimateContent.safeParse(revision.content);
+  if (!parsed.success) throw new Error(`Revision ${revision.id} holds an estimate that does not match the contract.`);
+  return parsed.data;
+}
+
+export function revisionSettings(revision: QuoteRevision): RevisionSettings {
+  const parsed = RevisionSettings.safeParse(revision.settings);
+  if (!parsed.success) throw new Error(`Revision ${revision.id} holds settings that do not match the contract.`);
+  return parsed.data;
+}
+
+/** The firm's pricing settings as a revision snapshots them. */
+export function settingsFromOrganization(firm: Organization): RevisionSettings {
+  return RevisionSettings.parse({
+    currency: firm.currency,
+    locale: firm.locale,
+    vatRounding: firm.vatRounding,
+    defaultVatRateBp: firm.vatRateBp,
+    markupPercentBp: firm.markupPercentBp,
+    depositPercentBp: firm.depositPercentBp,
+    labourRateMinorPerHour: firm.labourRateMinorPerHour,
+    quoteValidityDays: firm.quoteValidityDays,
+    termsText: firm.termsText,
+  });
+}
+
+/** The engine's totals for an estimate; input the engine refuses is a 400 naming the line. */
+export function priceRevision(content: EstimateContent, settings: RevisionSettings): QuoteTotals {
+  try {
+    return computeQuoteTotals(estimateQuoteInput(content, settings));
+  } catch (err) {
+    if (isEngineInputError(err)) throw badRequest(err.message, [{ path: `body.content${engineSubject(err.finding.subject, content)}`, message: err.message }]);
+    throw err;
+  }
+}
+
+/** The engine names flat lines (`lines[7]`); turn that into the document's section/line path. */
+function engineSubject(subject: string | undefined, content: EstimateContent): string {
+  const m = subject ? /^lines\[(\d+)\](.*)$/.exec(subject) : null;
+  if (!m) return subject ? `.${subject}` : '';
+  let index = Number(m[1]);
+  for (let s = 0; s < content.sections.length; s++) {
+    const n = content.sections[s]!.lines.length;
+    if (index < n) return `.sections.${s}.lines.${index}${m[2]!.replace(/^\./, '.')}`;
+    index -= n;
+  }
+  return `.${subject}`;
+}
+
+/** What a revision stores as `totals`: the engine's figures without the per-line amounts. */
+export function storedTotals(totals: QuoteTotals): RevisionTotals {
+  return {
+    grossMinor: totals.grossMinor,
+    lineDiscountMinor: totals.lineDiscountMinor,
+    quoteDiscountMinor: totals.quoteDiscountMinor,
+    netMinor: totals.netMinor,
+    vatByRate: totals.vatByRate.map((r) => ({ rateBp: r.rateBp, netMinor: r.netMinor, vatMinor: r.vatMinor })),
+    vatMinor: totals.vatMinor,
+    totalMinor: totals.totalMinor,
+    costMinor: totals.costMinor,
+    grossMarginMinor: totals.grossMarginMinor,
+    grossMarginBp: totals.grossMarginBp,
+    deposit: totals.deposit,
+    findings: totals.findings.map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
+  };
+}
+
+/** The event types that move a quote's status, and to what. */
+const STATUS_OF_EVENT: Partial<Record<QuoteEventType, QuoteStatus>> = {
+  created: 'draft',
+  revised: 'draft',
+  sent: 'sent',
+  viewed: 'viewed',
+  approved: 'approved',
+  declined: 'declined',
+  expired: 'expired',
+  'deposit-paid': 'deposit-paid',
+  won: 'won',
+  lost: 'lost',
+};
+
+/**
+ * Append to a quote's history and move its status to the step the event names. A `viewed`
+ * only moves a sent quote (a homeowner reopening an approved quote does not undo approval);
+ * events without a status (resent, link-revoked, refunded) leave it. Persisted, not flushed:
+ * the caller flushes with its own changes so both land together.
+ */
+export function appendQuoteEvent(
+  em: EntityManager,
+  quote: Quote,
+  type: QuoteEventType,
+  actor: Actor,
+  data: Record<string, unknown> = {},
+  revision: QuoteRevision | null = null,
+): QuoteEvent {
+  const event = em.create(QuoteEvent, {
+    organization: quote.organization,
+    quote,
+    revision,
+    type,
+    actor: actor ? em.getReference(User, actor.id) : null,
+    data,
+    at: new Date(),
+  });
+  const next = STATUS_OF_EVENT[type];
+  if (next && (type !== 'viewed' || quote.status === 'sent')) quote.status = next;
+  return event;
+}
+
+/**
+ * Freeze a draft revision when it is sent: state `sent`, the SHA-256 of its content, the quote's
+ * sent date and validity from the revision's settings, and a `sent` event; an earlier sent
+ * revision becomes `superseded`. Refuses anything but a draft. Persisted, not flushed.
+ */
+export async function markRevisionSent(
+  em: EntityManager,
+  quote: Quote,
+  revision: QuoteRevision,
+  actor: Actor,
+  data: Record<string, unknown> = {},
+): Promise<QuoteEvent> {
+  if (revision.state !== 'draft') throw conflict(`Revision ${revision.number} has already been sent; revise the quote to change it.`);
+  for (const earlier of await em.find(QuoteRevision, { quote: quote.id, state: 'sent' })) earlier.state = 'superseded';
+  const settings = revisionSettings(revision);
+  const now = new Date();
+  revision.state = 'sent';
+  revision.sentAt = now;
+  revision.contentHash = createHash('sha256').update(JSON.stringify(revision.content)).digest('hex');
+  quote.sentAt = now;
+  quote.validUntil = new Date(now.getTime() + settings.quoteValidityDays * 24 * 3600_000);
+  return appendQuoteEvent(em, quote, 'sent', actor, { revisionNumber: revision.number, ...data }, revision);
+}
+
+function emptyContent(settings: RevisionSettings): EstimateContent {
+  return {
+    sections: [{ id: newId(), name: 'Whole garden', lines: [] }],
+    discount: null,
+    deposit: settings.depositPercentBp > 0 ? { kind: 'percent', bp: settings.depositPercentBp } : null,
+    introduction: '',
+  };
+}
+
+/** A new quote with its first draft revision, numbered next in the firm's sequence. */
+export async function createQuote(em: EntityManager, organizationId: string, estimatorId: string, input: CreateQuoteRequest): Promise<Quote> {
+  const customer = await em.findOne(Customer, { id: input.customerId, organization: organizationId });
+  if (!customer) throw badRequest('Choose one of your customers.', [{ path: 'body.customerId', message: 'That customer does not exist or is not yours.' }]);
+  let site: Site | null = null;
+  if (input.siteId) {
+    site = await em.findOne(Site, { id: input.siteId, organization: organizationId, customer: customer.id });
+    if (!site) throw badRequest('Choose one of this customer’s sites.', [{ path: 'body.siteId', message: 'That site does not belong to this customer.' }]);
+  }
+  const firm = await em.findOneOrFail(Organization, organizationId);
+  const settings = settingsFromOrganization(firm);
+  const content = emptyContent(settings);
+  const totals = storedTotals(priceRevision(content, settings));
+
+  for (let attempt = 0; ; attempt++) {
+    const fork = em.fork();
+    const last = await fork.findOne(Quote, { organization: organizationId }, { orderBy: { number: 'desc' }, fields: ['number'] });
+    const quote = fork.create(Quote, {
+      organization: fork.getReference(Organization, organizationId),
+      number: (last?.number ?? 0) + 1,
+      title: input.title ?? '',
+      customer: fork.getReference(Customer, customer.id),
+      site: site ? fork.getReference(Site, site.id) : null,
+      estimator: fork.getReference(User, estimatorId),
+      status: 'draft',
+      valueMinor: totals.totalMinor,
+    });
+    const revision = fork.create(QuoteRevision, {
+      organization: quote.organization,
+      quote,
+      number: 1,
+      state: 'draft',
+      content,
+      settings,
+      totals,
+    });
+    appendQuoteEvent(fork, quote, 'created', { id: estimatorId }, { revisionNumber: 1 }, revision);
+    try {
+      await fork.flush();
+      return loadQuoteForFirm(em, organizationId, quote.id);
+    } catch (err) {
+      // Two people creating at once took the same number: take the next one.
+      if (err instanceof UniqueConstraintViolationException && attempt < 3) continue;
+      throw err;
+    }
+  }
+}
+
+/**
+ * Save the whole grid. `version` must be the revision's current one (else 409, nothing
+ * written); only a draft can be saved; totals are recomputed here with the engine.
+ */
+export async function saveRevisionContent(
+  em: EntityManager,
+  quote: Quote,
+  revision: QuoteRevision,
+  version: number,
+  content: EstimateContent,
+): Promise<{ revision: QuoteRevision; totals: RevisionTotals }> {
+  if (revision.state !== 'draft')
+    throw conflict(`Revision ${revision.number} was sent and is frozen. Choose “Revise” to make a new draft from it.`);
+  if (revision.version !== version)
+    throw conflict(
+      `Someone else saved this quote after you opened it (your copy is version ${version}, the saved one is ${revision.version}). Reload theirs, or keep yours and save over it.`,
+    );
+  const totals = storedTotals(priceRevision(content, revisionSettings(revision)));
+  revision.content = content;
+  revision.totals = totals;
+  quote.valueMinor = totals.totalMinor;
+  quote.updatedAt = new Date();
+  await em.flush();
+  return { revision, totals };
+}
+
+/**
+ * Start a new draft from the current revision (after it was sent). The sent one stays as it
+ * is, viewable; a draft that was never sent cannot be revised (edit it instead).
+ */
+export async function reviseQuote(em: EntityManager, quote: Quote, actor: Actor): Promise<QuoteRevision> {
+  const current = await currentRevision(em, quote);
+  if (current.state === 'draft') throw conflict(`Revision ${current.number} is still a draft; edit it directly.`);
+  const settings = settingsFromOrganization(await em.findOneOrFail(Organization, quote.organization.id));
+  const content = revisionContent(current);
+  // Keep the sent revision's tax rounding so the new draft prices the same until edited.
+  const merged: RevisionSettings = { ...settings, vatRounding: revisionSettings(current).vatRounding };
+  const totals = storedTotals(priceRevision(content, merged));
+  const revision = em.create(QuoteRevision, {
+    organization: quote.organization,
+    quote,
+    number: current.number + 1,
+    state: 'draft',
+    content,
+    settings: merged,
+    totals,
+  });
+  quote.valueMinor = totals.totalMinor;
+  appendQuoteEvent(em, quote, 'revised', actor, { revisionNumber: revision.number, from: current.number }, revision);
+  await em.flush();
+  return revision;
+}
+
+export async function listQuoteEvents(em: EntityManager, quote: Quote): Promise<QuoteEvent[]> {
+  return em.find(QuoteEvent, { quote: quote.id }, { orderBy: { at: 'asc', id: 'asc' }, populate: ['actor', 'revision'] });
+}
