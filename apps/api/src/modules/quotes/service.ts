@@ -209,11 +209,11 @@ function emptyContent(settings: RevisionSettings): EstimateContent {
 /** A new quote with its first draft revision, numbered next in the firm's sequence. */
 export async function createQuote(em: EntityManager, organizationId: string, estimatorId: string, input: CreateQuoteRequest): Promise<Quote> {
   const customer = await em.findOne(Customer, { id: input.customerId, organization: organizationId });
-  if (!customer) throw badRequest('Choose one of your customers.', [{ path: 'body.customerId', message: 'That customer does not exist or is not yours.' }]);
+  if (!customer) throw notFound('That customer');
   let site: Site | null = null;
   if (input.siteId) {
     site = await em.findOne(Site, { id: input.siteId, organization: organizationId, customer: customer.id });
-    if (!site) throw badRequest('Choose one of this customer’s sites.', [{ path: 'body.siteId', message: 'That site does not belong to this customer.' }]);
+    if (!site) throw notFound('That site of this customer');
   }
   const firm = await em.findOneOrFail(Organization, organizationId);
   const settings = settingsFromOrganization(firm);
