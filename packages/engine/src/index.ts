@@ -43,7 +43,7 @@ export {
   type TerminalSchedule,
   type WiringKind,
 } from './wiring/terminal-schedule';
-export { checkWiring, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
+export { checkWiring, electricalNodes, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
 // -- constant-voltage runs, takeoff, labour, money (section C)
 export * from './money';
 export * from './takeoff';

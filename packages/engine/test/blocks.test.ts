@@ -12,6 +12,7 @@ import { describe, expect, it } from 'vitest';
 import {
   blockNeeds,
   checkWiring,
+  electricalNodes,
   planConnectorBlocks,
   type BlockPlanInput,
   type ConnectorBlockType,
@@ -121,7 +122,7 @@ describe('terminal schedule follows the series rule', () => {
         const expected = [['driver+', 'fitting:1+']];
         for (let k = 1; k < n; k++) expected.push([`fitting:${k}-`, `fitting:${k + 1}+`]);
         expected.push([`fitting:${n}-`, 'driver-']);
-        const got = r.nodes.map((x) => [...x.ends].sort()).sort();
+        const got = electricalNodes(p).map((x) => [...x.ends].sort()).sort();
         expect(got).toEqual(expected.map((x) => x.sort()).sort());
       }),
       { numRuns: 150 },

@@ -8,7 +8,7 @@
  * - an LED is a diode: reversed, it does not light (definition of forward bias).
  */
 import { describe, expect, it } from 'vitest';
-import { checkWiring, parseConductorEnd, type TerminalSchedule } from '../src/index';
+import { checkWiring, electricalNodes, parseConductorEnd, type TerminalSchedule } from '../src/index';
 
 const T = (...conductors: string[]) => ({ conductors });
 
@@ -99,8 +99,11 @@ describe('constant-current series check', () => {
     expect(r.findings).toEqual([]);
     expect(r.seriesOrder).toEqual([1, 2, 3]);
     // the return leg: driver − is common with fitting 3 − through link core 2
-    expect(r.nodes.find((n) => n.ends.includes('driver-'))!.ends.sort()).toEqual(['driver-', 'fitting:3-']);
-    expect(r.nodes.find((n) => n.ends.includes('driver-'))!.terminals).toEqual(['block:1/terminal:4', 'block:2/terminal:2']);
+    const ret = electricalNodes(series3()).find((n) => n.ends.includes('driver-'))!;
+    expect(ret).toEqual({ terminals: ['block:1/terminal:4', 'block:2/terminal:2'], ends: ['driver-', 'fitting:3-'] });
+    // typed spellings come back canonical
+    const typed = edit(series3(), (c) => (c.blocks[0]!.terminals[0]!.conductors = ['Driver +', 'FITTING:1+']));
+    expect(electricalNodes(typed)[0]).toEqual({ terminals: ['block:1/terminal:1'], ends: ['driver+', 'fitting:1+'] });
   });
 
   it('reads a typed schedule with spaces, capitals and the typographic minus', () => {
@@ -227,7 +230,7 @@ describe('constant-voltage check', () => {
     expect(r.ok).toBe(true);
     expect(r.findings).toEqual([]);
     expect(r.seriesOrder).toBeNull();
-    expect(r.nodes.map((n) => n.ends.length)).toEqual([4, 4]);
+    expect(electricalNodes(bus2()).map((n) => n.ends.length)).toEqual([4, 4]);
   });
   it.each([
     ['reversed fitting', () => swap(bus2(), 'fitting:2+', 'fitting:2-'), ['fitting-reversed']],

@@ -68,6 +68,7 @@ export interface PlannedLink {
 /** A terminal schedule (pass it to `checkWiring` as it is) plus what the installer needs. */
 export interface BlockPlan extends TerminalSchedule {
   kind: 'constant-current';
+  /** Each fitting's label, or an empty string where none was given. */
   fittingLabels: string[];
   blocks: PlannedBlock[];
   links: PlannedLink[];
@@ -81,7 +82,7 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
   const findings: Finding[] = [];
   const fittings = Array.isArray(input?.string?.fittings) ? input.string.fittings : [];
   const n = fittings.length;
-  const labels = fittings.map((f, i) => f?.label ?? `Fitting ${i + 1}`);
+  const labels = fittings.map((f) => (typeof f?.label === 'string' ? f.label : ''));
   const empty = (): BlockPlan => ({
     kind: 'constant-current',
     fittingCount: n,
@@ -390,19 +391,24 @@ function linkLength(ref: (BlockCableRef & { lengthsM?: readonly number[] }) | un
 function checkConductorSizes(input: BlockPlanInput, type: ConnectorBlockType, findings: Finding[]): void {
   const range = type.terminalRangeMm2;
   if (!range) return;
-  const check = (ref: BlockCableRef | undefined, what: () => string, subject: () => string) => {
+  const outside = (ref: BlockCableRef | undefined): boolean => {
     const mm2 = ref?.conductorMm2;
-    if (mm2 === undefined || (mm2 >= range.min && mm2 <= range.max)) return;
+    return mm2 !== undefined && !(mm2 >= range.min && mm2 <= range.max);
+  };
+  const report = (mm2: number, what: string, subject: string) =>
     findings.push(
       finding(
         'conductor-outside-terminal-range',
         'error',
-        `The ${what()} has ${mm2} mm² conductors; block type ${type.name}'s terminals clamp ${range.min}-${range.max} mm².`,
-        { subject: subject(), values: { conductorMm2: mm2, minMm2: range.min, maxMm2: range.max } },
+        `The ${what} has ${mm2} mm² conductors; block type ${type.name}'s terminals clamp ${range.min}-${range.max} mm².`,
+        { subject, values: { conductorMm2: mm2, minMm2: range.min, maxMm2: range.max } },
       ),
     );
-  };
-  check(input.string.driverLead, () => 'driver lead', () => 'driver');
-  check(input.string.linkCable, () => 'link cable', () => 'link');
-  input.string.fittings.forEach((f, i) => check(f?.tail, () => `fitting ${i + 1} tail`, () => `fitting:${i + 1}`));
+  const { driverLead, linkCable, fittings } = input.string;
+  if (outside(driverLead)) report(driverLead!.conductorMm2!, 'driver lead', 'driver');
+  if (outside(linkCable)) report(linkCable!.conductorMm2!, 'link cable', 'link');
+  for (let i = 0; i < fittings.length; i++) {
+    const tail = fittings[i]?.tail;
+    if (outside(tail)) report(tail!.conductorMm2!, `fitting ${i + 1} tail`, `fitting:${i + 1}`);
+  }
 }

@@ -1,7 +1,7 @@
 /**
  * The installer's step list for a block plan, in the order the work is done, in plain words.
  */
-import { parseConductorEnd } from '../wiring/conductor-id';
+import { newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
 import type { BlockPlan } from './block-plan';
 import { describeCable, type EntryUse } from './entry-seals';
 
@@ -15,9 +15,11 @@ export interface InstallerStep {
  * Step texts are joined from parts rather than concatenated: a schedule of thousands of
  * terminals then holds compact flat strings, not chains of fragments.
  */
+/** `labels[k-1]` names fitting k; an empty label leaves the fitting by number only. */
 export function installerSteps(plan: BlockPlan, labels: readonly string[]): InstallerStep[] {
   const steps: InstallerStep[] = [];
   const add = (block: number | null, ...parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
+  const addParts = (block: number, parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
   add(
     null,
     "Switch off and isolate the driver's supply before you start. Mains-side work, protective devices and " +
@@ -45,14 +47,14 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
       ' carries the return back to the driver -.',
     );
   }
-  const fittingNames = labels.map((label, i) => `fitting ${i + 1} (${label})`);
+  const fittingNames = labels.map((label, i) => (label ? `fitting ${i + 1} (${label})` : `fitting ${i + 1}`));
   const parts: (string | number)[] = [];
+  const scan = newConductorScan();
   const describe = (text: string): void => {
-    const end = parseConductorEnd(text);
-    if (!end) parts.push(text);
-    else if (end.kind === 'fitting') parts.push(fittingNames[end.fitting - 1] ?? `fitting ${end.fitting}`, SIGN[end.polarity]);
-    else if (end.kind === 'driver') parts.push('driver lead', SIGN[end.polarity]);
-    else parts.push('link cable ', end.link, ' core ', end.core, ' (end ', end.end, ')');
+    if (!scanConductorEnd(text, scan)) parts.push(text);
+    else if (scan.kind === 'fitting') parts.push(fittingNames[scan.fitting - 1] ?? `fitting ${scan.fitting}`, scan.minus ? ' -' : ' +');
+    else if (scan.kind === 'driver') parts.push(scan.minus ? 'driver lead -' : 'driver lead +');
+    else parts.push('link cable ', scan.link, ' core ', scan.core, scan.endB ? ' (end B)' : ' (end A)');
   };
   for (const block of plan.blocks) {
     const e = block.entries;
@@ -82,7 +84,7 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
         describe(c);
       });
       parts.push(t.note ? ` (${t.note}).` : '.');
-      add(block.number, ...parts);
+      addParts(block.number, parts);
     });
     if (block.spareTerminals > 0) {
       const s = block.spareTerminals === 1 ? '' : 's';
@@ -96,8 +98,6 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
   );
   return steps;
 }
-
-const SIGN = { '+': ' +', '-': ' -' } as const;
 
 /** "driver lead, tails of fittings 1-4 and link cable 1". */
 function cableList(fittings: readonly number[], cables: readonly EntryUse[]): string {

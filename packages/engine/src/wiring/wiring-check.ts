@@ -15,7 +15,7 @@
  *
  * Anything else is reported with where it is. The verdict depends only on which element
  * ends (driver ±, fitting k ±) are electrically common, plus the per-terminal conductor
- * counts and the ends missing, repeated or unreadable; `nodes` returns that partition.
+ * counts and the ends missing, repeated or unreadable; `electricalNodes` returns that partition.
  */
 import { finding, hasErrors, type Finding } from '../findings';
 import { describeConductorEnd, formatConductorEnd, newConductorScan, scanConductorEnd, type ConductorEnd } from './conductor-id';
@@ -35,8 +35,6 @@ export interface WiringCheckResult {
   ok: boolean;
   /** Constant current, complete loop only: fitting numbers in the order the current meets them. */
   seriesOrder: number[] | null;
-  /** The electrical nodes that carry at least one driver or fitting end. */
-  nodes: WiringNode[];
   findings: Finding[];
 }
 
@@ -55,11 +53,23 @@ function list(xs: readonly (string | number)[]): string {
 }
 
 export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
+  return readCircuit(schedule, false).result;
+}
+
+/**
+ * The electrical nodes that carry at least one driver or fitting end, each with its
+ * terminals (for showing which terminals are common); the partition the check judges.
+ */
+export function electricalNodes(schedule: TerminalSchedule): WiringNode[] {
+  return readCircuit(schedule, true).nodes;
+}
+
+function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: WiringCheckResult; nodes: WiringNode[] } {
   const malformed = shapeProblem(schedule);
   const kind: WiringKind = schedule?.kind === 'constant-voltage' ? 'constant-voltage' : 'constant-current';
   if (malformed) {
     const findings = [finding('schedule-malformed', 'error', malformed)];
-    return { kind, ok: false, seriesOrder: null, nodes: [], findings };
+    return { result: { kind, ok: false, seriesOrder: null, findings }, nodes: [] };
   }
 
   const n = schedule.fittingCount;
@@ -68,8 +78,11 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
   const say = (end: ConductorEnd): string => describeConductorEnd(end, labels);
 
   // 1. Terminals, and where every conductor end lands.
-  const termBlock: number[] = [];
-  const termNumber: number[] = [];
+  let terminalTotal = 0;
+  for (const block of schedule.blocks) terminalTotal += block.terminals.length;
+  const termBlock = new Int32Array(terminalTotal);
+  const termNumber = new Int32Array(terminalTotal);
+  let nextTerminal = 0;
   const endTerminal = new Int32Array(2 * n + 2).fill(NONE);
   const endText: string[] = new Array<string>(2 * n + 2);
   const repeats = new Map<number, number[]>(); // element end -> every terminal it lands on
@@ -79,9 +92,9 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
 
   schedule.blocks.forEach((block, bi) => {
     block.terminals.forEach((terminal, ti) => {
-      const t = termBlock.length;
-      termBlock.push(bi + 1);
-      termNumber.push(ti + 1);
+      const t = nextTerminal++;
+      termBlock[t] = bi + 1;
+      termNumber[t] = ti + 1;
       const limit = block.conductorsPerTerminal;
       if (limit !== undefined && terminal.conductors.length > limit) {
         findings.push(
@@ -124,7 +137,7 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
         const e = (scan.kind === 'driver' ? 0 : 2 * scan.fitting) + (scan.minus ? 1 : 0);
         if (endTerminal[e] === NONE) {
           endTerminal[e] = t;
-          if (scan.canonical) endText[e] = text;
+          if (wantNodes && scan.canonical) endText[e] = text;
         } else {
           const at = repeats.get(e) ?? [endTerminal[e]!];
           at.push(t);
@@ -133,7 +146,7 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
       }
     });
   });
-  const terminalCount = termBlock.length;
+  const terminalCount = terminalTotal;
   const at = (t: number): string => `block ${termBlock[t]} terminal ${termNumber[t]}`;
   const subjectOf = (t: number): string => where(termBlock[t]!, termNumber[t]!);
 
@@ -276,33 +289,36 @@ export function checkWiring(schedule: TerminalSchedule): WiringCheckResult {
   };
   const endAt = (e: number): string => at(endTerminal[e]!);
 
-  const ctx: Analysis = { n, nodeOf, nodeEnds, say, nodeAt, endAt, subjectOf, endTerminal, findings };
+  const ctx: Analysis = { n, terminalCount, nodeOf, nodeEnds, say, nodeAt, endAt, subjectOf, endTerminal, findings };
   const seriesOrder = kind === 'constant-current' ? analyseSeries(ctx) : (analyseParallel(ctx), null);
 
   const nodes: WiringNode[] = [];
-  const firstTerminal = new Map<number, number>();
-  for (const [r, ends] of nodeEnds) {
-    let first = terminalCount;
-    for (const e of ends) first = Math.min(first, endTerminal[e]!);
-    firstTerminal.set(r, first);
-  }
-  const roots = [...nodeEnds.keys()].sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
-  const byLanding = (x: number, y: number) => endTerminal[x]! - endTerminal[y]! || x - y;
-  for (const r of roots) {
-    const ends = nodeEnds.get(r)!;
-    const order = ends.length === 2 ? (byLanding(ends[0]!, ends[1]!) <= 0 ? ends : [ends[1]!, ends[0]!]) : [...ends].sort(byLanding);
-    nodes.push({
-      terminals: terminalsOf(r).map(subjectOf),
-      ends: order.map((e) => endText[e] ?? formatConductorEnd(elementEnd(e))),
-    });
+  if (wantNodes) {
+    const firstTerminal = new Map<number, number>();
+    for (const [r, ends] of nodeEnds) {
+      let first = terminalCount;
+      for (const e of ends) first = Math.min(first, endTerminal[e]!);
+      firstTerminal.set(r, first);
+    }
+    const roots = [...nodeEnds.keys()].sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
+    const byLanding = (x: number, y: number) => endTerminal[x]! - endTerminal[y]! || x - y;
+    for (const r of roots) {
+      const ends = nodeEnds.get(r)!;
+      const order = ends.length === 2 ? (byLanding(ends[0]!, ends[1]!) <= 0 ? ends : [ends[1]!, ends[0]!]) : [...ends].sort(byLanding);
+      nodes.push({
+        terminals: terminalsOf(r).map(subjectOf),
+        ends: order.map((e) => endText[e] ?? formatConductorEnd(elementEnd(e))),
+      });
+    }
   }
 
   const ok = !hasErrors(findings);
-  return { kind, ok, seriesOrder: ok ? seriesOrder : null, nodes, findings };
+  return { result: { kind, ok, seriesOrder: ok ? seriesOrder : null, findings }, nodes };
 }
 
 interface Analysis {
   n: number;
+  terminalCount: number;
   nodeOf: Int32Array;
   nodeEnds: Map<number, number[]>;
   say: (end: ConductorEnd) => string;
@@ -365,12 +381,14 @@ function analyseSeries(a: Analysis): number[] | null {
   }
 
   // Fittings sharing both nodes are in parallel.
+  // Only a node with three or more ends can hold a parallel branch on the driver's loop.
   const pairs = new Map<number, number[]>();
-  const span = a.endTerminal.length + 1;
+  const span = a.terminalCount;
   for (let k = 1; k <= n; k++) {
     if (!bothEnds(a, k) || bypassed(a, k)) continue;
     const x = nodeOf[2 * k]!;
     const y = nodeOf[2 * k + 1]!;
+    if (nodeEnds.get(x)!.length < 3 && nodeEnds.get(y)!.length < 3) continue;
     const key = Math.min(x, y) * span + Math.max(x, y);
     const group = pairs.get(key);
     if (group) group.push(k);
