@@ -53,6 +53,10 @@ describe('daisy chain', () => {
     expect(r.findings.some((f) => f.code === 'cv-below-fitting-minimum')).toBe(false);
   });
 
+  it('gives JSON-serialisable results', () => {
+    expect(JSON.parse(JSON.stringify(r))).toEqual(r);
+  });
+
   it('sums load, current, cable loss and supply loading', () => {
     expect(r.loadW).toBe(24);
     expect(r.currentA).toBeCloseTo(2, 12);

@@ -60,6 +60,11 @@ describe('labour', () => {
     expect(r.byCircuit).toEqual([{ circuitId: 'front-bed', minutesMilli: 290_300 }]);
   });
 
+  it('gives JSON-serialisable results', () => {
+    const r = labour({ circuits: [circuit], catalogue, table });
+    expect(JSON.parse(JSON.stringify(r))).toEqual(r);
+  });
+
   it('becomes estimate lines that add up to the labour price', () => {
     const r = labour({ circuits: [circuit, { ...circuit, id: 'back-bed' }], catalogue, table });
     const q = computeQuoteTotals({ lines: labourQuoteLines(r, { vatRateBp: 2000 }), vatRounding: 'invoice-down-1p' });

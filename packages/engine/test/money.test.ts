@@ -19,6 +19,7 @@ import {
   priceFromMarkup,
   quantityMilli,
   UK_VAT_RATES_BP,
+  vatInInclusiveMinor,
   type QuoteLineInput,
   type VatRounding,
 } from '../src/money';
@@ -84,6 +85,16 @@ describe('HMRC VAT Notice 700 §17.5 rounding', () => {
       { rateBp: 500, netMinor: 99, vatMinor: 5 }, // 0.95p is the larger fraction, so it takes the penny
       { rateBp: 0, netMinor: 100, vatMinor: 0 },
     ]);
+  });
+});
+
+describe('VAT inside a VAT-inclusive price', () => {
+  // gov.uk (REFERENCES "Money"): the VAT fraction of a VAT-inclusive price at 20 % is 1/6.
+  it('takes 1/6 at 20 %', () => {
+    expect(vatInInclusiveMinor(120, 2000)).toBe(20);
+    expect(vatInInclusiveMinor(10_000, 2000)).toBe(1667); // 1666.67p
+    expect(vatInInclusiveMinor(10_000, 2000, 'down')).toBe(1666);
+    expect(vatInInclusiveMinor(10_500, 500)).toBe(500); // 5 %: 5/105
   });
 });
 
@@ -242,6 +253,15 @@ describe('discounts, options, alternatives, deposit', () => {
       expect(isEngineInputError(e)).toBe(true);
       expect((e as MoneyInputError).finding).toMatchObject({ code: 'not-safe-integer', severity: 'error', subject: 'lines[0].vatRateBp' });
     }
+  });
+
+  it('gives JSON-serialisable results', () => {
+    const t = computeQuoteTotals({
+      lines: [line('a', { optional: true }), line('b', { alternativeGroup: 'g', selected: true })],
+      vatRounding: 'invoice-down-1p',
+      deposit: { kind: 'percent', bp: 2500 },
+    });
+    expect(JSON.parse(JSON.stringify(t))).toEqual(t);
   });
 
   it('reports lines without a cost', () => {

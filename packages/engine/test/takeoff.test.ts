@@ -116,6 +116,10 @@ describe('takeoff', () => {
     expect(bad.findings.find((f) => f.code === 'power-product-mismatch')!.severity).toBe('error');
   });
 
+  it('gives JSON-serialisable results', () => {
+    expect(JSON.parse(JSON.stringify(result))).toEqual(result);
+  });
+
   it('uses the firm defaults (10 % slack, 1 m cut) when no settings are given', () => {
     const r = takeoff({ catalogue, circuits: [{ ...deckCircuit, cableRuns: [{ cableProductId: 'cab-2x1.5', length: metres(10), method: 'in-duct' }] }] });
     expect(r.lines.find((l) => l.productId === 'cab-2x1.5')!.quantityMilli).toBe(11_000);

@@ -13,7 +13,7 @@
  * rounded down and the pennies the total gained from the fractions go to the rates with
  * the largest fractions (largest remainder).
  */
-import { mulDiv, mulDivRem } from './integer-math';
+import { assertNonNegativeInteger, mulDiv, mulDivRem, type IntegerRounding } from './integer-math';
 
 export type VatRounding = 'line-down-0.1p' | 'line-nearest-1p' | 'line-nearest-0.5p' | 'invoice-down-1p';
 
@@ -88,4 +88,13 @@ export function vatByRate(
   }
   const byRate = parts.map((p) => ({ rateBp: p.rateBp, netMinor: p.netMinor, vatMinor: p.whole }));
   return { byRate, vatMinor: whole + Math.floor(rems / den) };
+}
+
+/**
+ * The VAT inside a VAT-inclusive amount: amount x rate / (1 + rate), rounded by `mode`
+ * (default half-up). At 20 % that is the VAT fraction 1/6.
+ */
+export function vatInInclusiveMinor(inclusiveMinor: number, rateBp: number, mode: IntegerRounding = 'half-up'): number {
+  assertNonNegativeInteger(rateBp, 'rateBp');
+  return mulDiv(inclusiveMinor, rateBp, 10_000 + rateBp, mode);
 }
