@@ -30,6 +30,7 @@ export {
 } from './blocks/block-plan';
 export { type BlockEntries, type EntryFit, type EntryUse } from './blocks/entry-seals';
 export { type InstallerStep } from './blocks/installer-steps';
+export { blockLayoutFromSeries } from './blocks/from-series-layout';
 export {
   describeConductorEnd,
   formatConductorEnd,

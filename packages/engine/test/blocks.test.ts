@@ -10,6 +10,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  blockLayoutFromSeries,
   blockNeeds,
   checkWiring,
   electricalNodes,
@@ -266,5 +267,37 @@ describe("installer's step list", () => {
     expect(texts.findIndex((t) => t.startsWith('Lay link'))).toBeLessThan(texts.findIndex((t) => t.startsWith('Block 1 terminal 1')));
     expect(texts[texts.length - 1]).toMatch(/confirm each fitting lights/);
     expect(texts).toContain("Leave block 2's other 2 terminals empty.");
+  });
+});
+
+describe('from a series string as the string check takes it', () => {
+  it('maps names, tails, the driver lead and link runs (feet to metres, AWG to mm²)', () => {
+    const layout = blockLayoutFromSeries({
+      fittings: [
+        { id: 'a', name: 'Oak uplight', ratings: [{ currentA: 0.35, forwardVoltageV: 9 }] },
+        {
+          id: 'b',
+          ratings: [{ currentA: 0.35, forwardVoltageV: 9 }],
+          tail: { length: { value: 1, unit: 'm' }, cable: { kind: 'metric', areaMm2: 0.75, conductorClass: 5, coating: 'plain' } },
+        },
+      ],
+      runs: [
+        { role: 'driver-lead', length: { value: 10, unit: 'ft' }, cable: { kind: 'awg', gauge: 14, stranding: 'stranded' } },
+        { role: 'link', length: { value: 6, unit: 'm' }, cable: { kind: 'metric', areaMm2: 1.5, conductorClass: 5, coating: 'plain' } },
+      ],
+    });
+    expect(layout.fittings).toEqual([
+      { id: 'a', label: 'Oak uplight' },
+      { id: 'b', tail: { lengthM: 1, conductorMm2: 0.75 } },
+    ]);
+    // 10 ft x 0.3048 m/ft (international foot, exact)
+    expect(layout.driverLead!.lengthM).toBeCloseTo(3.048, 9);
+    // 14 AWG: d = 0.127 mm * 92^((36 - 14)/39) = 1.628 mm, area 2.08 mm² (REFERENCES [derived], ASTM B258 [memory])
+    expect(layout.driverLead!.conductorMm2).toBeCloseTo(2.08, 2);
+    expect(layout.linkCable).toEqual({ conductorMm2: 1.5, lengthsM: [6] });
+    const plan = planConnectorBlocks({ string: layout, blockType: blockType(6), assignment: [['a'], ['b']] });
+    expect(errorCodes(plan)).toEqual([]);
+    expect(plan.links[0]!.lengthM).toBe(6);
+    expect(plan.steps).toContainEqual({ block: 1, text: 'Block 1 terminal 1: land driver lead + and fitting 1 (Oak uplight) + (driver + to the first fitting).' });
   });
 });
