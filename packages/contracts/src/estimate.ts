@@ -33,6 +33,8 @@ export const EstimateLine = z.object({
   id: z.string().min(1).max(64),
   /** Catalogue product, or null for free text. */
   productId: z.string().max(64).nullable(),
+  /** The supplier's code of that product as picked, shown in the grid (optional: older lines lack it). */
+  productCode: z.string().max(80).optional(),
   description: ShortText(2000),
   quantityMilli: z.number().int().min(0, 'Cannot be negative.').max(1_000_000_000, 'That quantity is too large.'),
   unit: ShortText(16),
