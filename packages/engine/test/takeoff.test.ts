@@ -120,6 +120,13 @@ describe('takeoff', () => {
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
   });
 
+  it('treats a catalogue price that is not whole minor units as missing', () => {
+    const r = takeoff({ catalogue: [{ ...catalogue[0]!, unitPriceMinor: 39.5 }], circuits: [{ ...pathCircuit, powerProductId: 'fx-spike-3w', cableRuns: [], connectorBlocks: [], seals: [], accessories: [] }] });
+    expect(r.findings.map((f) => f.code)).toContain('catalogue-price-invalid');
+    expect(r.lines[0]!.unitPriceMinor).toBeNull();
+    expect(materialQuoteLines(r.lines, { vatRateBp: 2000 }).findings.map((f) => f.code)).toEqual(['price-missing']);
+  });
+
   it('uses the firm defaults (10 % slack, 1 m cut) when no settings are given', () => {
     const r = takeoff({ catalogue, circuits: [{ ...deckCircuit, cableRuns: [{ cableProductId: 'cab-2x1.5', length: metres(10), method: 'in-duct' }] }] });
     expect(r.lines.find((l) => l.productId === 'cab-2x1.5')!.quantityMilli).toBe(11_000);

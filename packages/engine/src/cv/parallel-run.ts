@@ -15,12 +15,14 @@
 import { conductorBase, conductorResistanceOhmPerM, describeCable, type CableSpec } from '../cables/cable-spec';
 import { finding, type Finding } from '../findings';
 import { checkIpForLocation, type IpOverrides } from '../ip-code/installation-location';
-import { codeProfile, elvLimitsExceeded } from '../profiles/code-profile';
+import { codeProfile, elvLimitsExceeded, isCodeProfileId, type CodeProfile } from '../profiles/code-profile';
 import { isEngineInputError } from '../units/engine-input-error';
 import { lengthInMetres } from '../units/length';
+import { listOf, shown } from '../takeoff/input-guards';
 import { roundForDisplay } from '../units/round';
 import type {
   CvCableChoice,
+  CvFirmSettings,
   CvFittingResult,
   CvInput,
   CvLayout,
@@ -122,10 +124,16 @@ function cableOhmPerM(spec: CableSpec, temperatureC: number, subject: string, fi
 /** Check a constant-voltage supply and its parallel runs. Never throws for bad data: it reports findings. */
 export function checkCvRuns(input: CvInput): CvResult {
   const findings: Finding[] = [];
-  const profile = codeProfile(input.profile ?? 'uk-iec');
-  const firm = input.firm ?? {};
+  let profile: CodeProfile;
+  if (isCodeProfileId(input.profile) || (typeof input.profile === 'object' && input.profile !== null && Array.isArray(input.profile.elvLimits))) {
+    profile = codeProfile(input.profile);
+  } else {
+    findings.push(finding('profile-unknown', 'error', 'The code profile must be "uk-iec", "us-nec" or a full profile; using UK/IEC.', { subject: 'profile' }));
+    profile = codeProfile('uk-iec');
+  }
+  const firm: CvFirmSettings = typeof input.firm === 'object' && input.firm !== null ? input.firm : {};
   const supply = input.supply;
-  const supplyName = supply?.name ?? supply?.id ?? 'supply';
+  const supplyName = shown(supply?.name ?? supply?.id ?? 'supply');
 
   let dropLimitPct = firm.dropLimitPct ?? profile.voltageDropLimitPct ?? DEFAULT_CV_DROP_LIMIT_PCT;
   if (!isPositive(dropLimitPct) || dropLimitPct >= 100) {
@@ -195,7 +203,7 @@ export function checkCvRuns(input: CvInput): CvResult {
 
   // Stocked cables, smallest first (by cross-section, then by resistance, highest first).
   const options: { id: string; name: string; areaMm2: number; ohmPerM: number; spec: CableSpec }[] = [];
-  for (const [i, o] of (input.cableOptions ?? []).entries()) {
+  for (const [i, o] of listOf(input.cableOptions, 'cable options', findings).entries()) {
     const subject = `cable-option:${o?.id ?? i + 1}`;
     const ohmPerM = o && typeof o === 'object' ? cableOhmPerM(o.cable, temperatureC, subject, findings) : null;
     if (ohmPerM === null) continue;
@@ -211,7 +219,7 @@ export function checkCvRuns(input: CvInput): CvResult {
   let fittingCount = 0;
   let worst: CvWorst | null = null;
 
-  for (const [ri, run] of (input.runs ?? []).entries()) {
+  for (const [ri, run] of listOf(input.runs, 'runs', findings).entries()) {
     const prepared = prepareRun(run, ri, vs, findings, firm.ipOverrides);
     if (!prepared) continue;
     if (runIds.has(prepared.id)) {
@@ -424,7 +432,7 @@ function prepareRun(
     }
     if (f.location !== undefined) {
       // Most fittings on a run share an IP code and location: check each pair once per run.
-      const key = `${String(f.ipCode)}|${String(f.location)}`;
+      const key = `${shown(f.ipCode)}|${shown(f.location)}`;
       let shape = ipChecks.get(key);
       if (!shape) {
         shape = checkIpForLocation(f.ipCode, f.location, {

@@ -12,6 +12,7 @@ import { mulDiv } from '../money/integer-math';
 import type { QuoteLineInput } from '../money/quote-totals';
 import { indexCatalogue } from '../takeoff/catalogue';
 import { INSTALLATION_METHODS, type InstallationMethod, type TakeoffCircuit, type TakeoffProduct } from '../takeoff/circuit';
+import { listOf, shown } from '../takeoff/input-guards';
 import { isEngineInputError } from '../units/engine-input-error';
 import { lengthInMetres } from '../units/length';
 import type { LabourTable } from './labour-table';
@@ -67,7 +68,7 @@ function minutesMilli(value: unknown, what: string, findings: Finding[]): number
   const scaled = typeof value === 'number' && Number.isFinite(value) ? Math.round(value * 1000) : NaN;
   if (!(scaled >= 0) || !Number.isSafeInteger(scaled) || Math.abs(scaled - (value as number) * 1000) > 1e-6 * Math.max(1, scaled)) {
     findings.push(
-      finding('labour-table-invalid', 'error', `The labour table's ${what} must be minutes, zero or more, with at most three decimals; got ${String(value)}.`, {
+      finding('labour-table-invalid', 'error', `The labour table's ${what} must be minutes, zero or more, with at most three decimals; got ${shown(value)}.`, {
         subject: 'labour-table',
       }),
     );
@@ -79,7 +80,7 @@ function minutesMilli(value: unknown, what: string, findings: Finding[]): number
 function rateMinor(value: unknown, what: string, findings: Finding[]): number | null {
   if (typeof value !== 'number' || !Number.isSafeInteger(value) || value < 0) {
     findings.push(
-      finding('labour-table-invalid', 'error', `The labour table's ${what} must be a whole number of minor units per hour, zero or more; got ${String(value)}.`, {
+      finding('labour-table-invalid', 'error', `The labour table's ${what} must be a whole number of minor units per hour, zero or more; got ${shown(value)}.`, {
         subject: 'labour-table',
       }),
     );
@@ -102,14 +103,15 @@ interface Tally {
 /** Labour for circuits. Never throws for bad data: it reports findings and leaves the item out. */
 export function labour(input: LabourInput): LabourResult {
   const { byId, findings } = indexCatalogue(input.catalogue);
-  const table = input.table ?? ({} as LabourTable);
+  const table: Partial<LabourTable> = typeof input.table === 'object' && input.table !== null ? input.table : {};
   const perDriver = minutesMilli(table.minutesPerDriver, 'minutes per driver', findings);
   const perBlock = minutesMilli(table.minutesPerConnectorBlock, 'minutes per connector block', findings);
   const perTest = minutesMilli(table.minutesPerCircuitTest, 'minutes per circuit test', findings);
   const perDefaultFitting =
     table.defaultMinutesPerFitting === undefined ? null : minutesMilli(table.defaultMinutesPerFitting, 'default minutes per fitting', findings);
   const perFitting = new Map<string, number | null>();
-  for (const [kind, m] of Object.entries(table.minutesPerFitting ?? {})) {
+  const fittingMinutes = typeof table.minutesPerFitting === 'object' && table.minutesPerFitting !== null ? table.minutesPerFitting : {};
+  for (const [kind, m] of Object.entries(fittingMinutes)) {
     perFitting.set(kind, minutesMilli(m, `minutes for a "${kind}" fitting`, findings));
   }
   const perMetre = new Map<InstallationMethod, number | null>();
@@ -154,28 +156,29 @@ export function labour(input: LabourInput): LabourResult {
     byCircuit.set(circuitId, (byCircuit.get(circuitId) ?? 0) + minutes);
   };
 
-  const count = (n: number | undefined) => {
-    const c = n ?? 1;
+  const count = (item: { count?: number } | null | undefined) => {
+    if (typeof item !== 'object' || item === null) return null;
+    const c = item.count ?? 1;
     return Number.isSafeInteger(c) && c >= 0 ? c : null;
   };
 
-  for (const c of input.circuits ?? []) {
+  for (const c of listOf(input.circuits, 'circuits', findings)) {
     if (typeof c !== 'object' || c === null || typeof c.id !== 'string' || c.id === '') {
       findings.push(finding('circuit-invalid', 'error', 'Every circuit needs an id.'));
       continue;
     }
     byCircuit.set(c.id, byCircuit.get(c.id) ?? 0);
 
-    for (const [k, item] of (c.fittings ?? []).entries()) {
+    for (const [k, item] of listOf(c.fittings, `circuit ${c.id} fittings`, findings).entries()) {
       const subject = `circuit:${c.id}/fitting:${k + 1}`;
-      const n = count(item.count);
-      const product = byId.get(item.productId);
+      const n = count(item);
+      const product = n === null ? undefined : byId.get(item.productId);
       if (n === null) {
-        findings.push(finding('item-count-invalid', 'error', `The count for "${String(item.productId)}" must be a whole number, zero or more.`, { subject }));
+        findings.push(finding('item-count-invalid', 'error', `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`, { subject }));
         continue;
       }
       if (!product) {
-        findings.push(finding('product-unknown', 'error', `Circuit "${c.id}" uses product "${String(item.productId)}", which is not in the catalogue.`, { subject }));
+        findings.push(finding('product-unknown', 'error', `Circuit "${c.id}" uses product "${shown(item.productId)}", which is not in the catalogue.`, { subject }));
         continue;
       }
       const kind = product.fittingKind ?? 'unspecified';
@@ -196,11 +199,11 @@ export function labour(input: LabourInput): LabourResult {
 
     if (perDriver !== null && c.powerProductId !== undefined) add(c.id, 'driver', 'driver', 'Mount and connect drivers and supplies', 'each', perDriver, 1000);
 
-    for (const [k, item] of (c.connectorBlocks ?? []).entries()) {
-      const n = count(item.count);
+    for (const [k, item] of listOf(c.connectorBlocks, `circuit ${c.id} connector blocks`, findings).entries()) {
+      const n = count(item);
       if (n === null) {
         findings.push(
-          finding('item-count-invalid', 'error', `The count for "${String(item.productId)}" must be a whole number, zero or more.`, {
+          finding('item-count-invalid', 'error', `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`, {
             subject: `circuit:${c.id}/block:${k + 1}`,
           }),
         );
@@ -209,8 +212,12 @@ export function labour(input: LabourInput): LabourResult {
       if (perBlock !== null) add(c.id, 'connector-block', 'connector-block', 'Make off connector blocks', 'each', perBlock, n * 1000);
     }
 
-    for (const [k, run] of (c.cableRuns ?? []).entries()) {
-      const subject = `circuit:${c.id}/cable:${run.id ?? k + 1}`;
+    for (const [k, run] of listOf(c.cableRuns, `circuit ${c.id} cable runs`, findings).entries()) {
+      const subject = `circuit:${c.id}/cable:${run?.id ?? k + 1}`;
+      if (typeof run !== 'object' || run === null) {
+        findings.push(finding('cable-run-invalid', 'error', `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`, { subject }));
+        continue;
+      }
       let mm: number;
       try {
         mm = Math.round(lengthInMetres(run.length, subject) * 1000);
@@ -223,7 +230,7 @@ export function labour(input: LabourInput): LabourResult {
       }
       if (!INSTALLATION_METHODS.includes(run.method)) {
         findings.push(
-          finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${String(run.method)}".`, {
+          finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`, {
             subject,
           }),
         );

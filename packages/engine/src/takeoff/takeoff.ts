@@ -14,6 +14,7 @@ import { divRound, mulDiv } from '../money/integer-math';
 import { isEngineInputError } from '../units/engine-input-error';
 import { lengthInMetres } from '../units/length';
 import { indexCatalogue } from './catalogue';
+import { listOf, shown } from './input-guards';
 import {
   INSTALLATION_METHODS,
   PRODUCT_CATEGORIES,
@@ -110,10 +111,13 @@ function toMillimetres(metres: number): number {
 
 /** Whole-number count of an item, or a finding saying why not. */
 function itemCount(item: CircuitItem, subject: string): { count: number } | { finding: Finding } {
+  if (typeof item !== 'object' || item === null) {
+    return { finding: finding('item-invalid', 'error', 'Each item needs a product id and a count.', { subject }) };
+  }
   const count = item.count ?? 1;
   if (!Number.isSafeInteger(count) || count < 0) {
     return {
-      finding: finding('item-count-invalid', 'error', `The count for "${String(item.productId)}" must be a whole number, zero or more; got ${String(count)}.`, {
+      finding: finding('item-count-invalid', 'error', `The count for "${shown(item.productId)}" must be a whole number, zero or more; got ${shown(count)}.`, {
         subject,
       }),
     };
@@ -144,7 +148,7 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
     const product = byId.get(productId);
     if (!product) {
       findings.push(
-        finding('product-unknown', 'error', `Circuit "${circuitId}" uses product "${String(productId)}", which is not in the catalogue.`, {
+        finding('product-unknown', 'error', `Circuit "${circuitId}" uses product "${shown(productId)}", which is not in the catalogue.`, {
           subject,
         }),
       );
@@ -185,7 +189,8 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
     });
   };
 
-  for (const c of input.circuits ?? []) {
+  const circuits = listOf(input.circuits, 'circuits', findings);
+  for (const c of circuits) {
     if (typeof c !== 'object' || c === null || typeof c.id !== 'string' || c.id === '') {
       findings.push(finding('circuit-invalid', 'error', 'Every circuit needs an id.'));
       continue;
@@ -227,7 +232,11 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
       findings.push(finding('circuit-invalid', 'error', `Circuit "${c.id}": cable runs must be a list.`, { subject: `circuit:${c.id}` }));
     } else {
       c.cableRuns.forEach((run, k) => {
-        const subject = `circuit:${c.id}/cable:${run.id ?? k + 1}`;
+        const subject = `circuit:${c.id}/cable:${run?.id ?? k + 1}`;
+        if (typeof run !== 'object' || run === null) {
+          findings.push(finding('cable-run-invalid', 'error', `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`, { subject }));
+          return;
+        }
         let mm: number;
         try {
           mm = toMillimetres(lengthInMetres(run.length, subject));
@@ -240,7 +249,7 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
         }
         if (!INSTALLATION_METHODS.includes(run.method)) {
           findings.push(
-            finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${String(run.method)}".`, {
+            finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`, {
               subject,
             }),
           );
@@ -294,7 +303,7 @@ function cutLength(metres: number | undefined, subject: string, findings: Findin
   if (metres === undefined) return null;
   const mm = Number.isFinite(metres) ? toMillimetres(metres) : NaN;
   if (!(mm >= 1) || !Number.isSafeInteger(mm)) {
-    findings.push(finding('setting-invalid', 'error', `A cable cut length must be at least 1 mm; got ${String(metres)} m.`, { subject }));
+    findings.push(finding('setting-invalid', 'error', `A cable cut length must be at least 1 mm; got ${shown(metres)} m.`, { subject }));
     return null;
   }
   return mm;
