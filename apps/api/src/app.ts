@@ -13,6 +13,9 @@ import { organizationRouter } from './modules/organization/router';
 import { passwordResetRouter } from './modules/password-resets/router';
 import { sessionRouter } from './modules/session/router';
 import { teamRouters } from './modules/team/router';
+import { customersRouter } from './modules/customers/router';
+import { productImportsRouter } from './modules/catalogue/import-router';
+import { productsRouter } from './modules/catalogue/router';
 import { quoteBodyParser, quotesRouter } from './modules/quotes/router';
 
 export interface CreateAppOptions extends AppDeps {
@@ -92,6 +95,9 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   for (const r of teamRouters(deps, routes)) api.use(r);
   api.use(passwordResetRouter(deps, routes));
   api.use(organizationRouter(deps, routes));
+  api.use(customersRouter(deps, routes));
+  api.use(productsRouter(deps, routes));
+  api.use(productImportsRouter(deps, routes));
   api.use(quotesRouter(deps, routes));
   api.use('/api', apiNotFound);
   app.use(api);

@@ -10,14 +10,19 @@ import { ROLES, type Role } from '@gloaming/contracts';
 import type { RegisteredRoute } from '../src/http/routes';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
+import { createCatalogueFixture } from './catalogue-fixtures';
 
 let t: TestServer;
 let quoteA: string;
 let quoteB: string;
+let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
+let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
 beforeAll(async () => {
   t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
   quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
   quoteB = (await createQuoteFixture(t.orm.em.fork(), t.firmB)).quote.id;
+  catalogueA = await createCatalogueFixture(t.orm.em.fork(), t.firmA, t.config.dataDir);
+  catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
 });
 afterAll(async () => t.close());
 
@@ -51,6 +56,13 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
   if (route.path.startsWith('/api/quotes/:id'))
     return { own: { id: quoteA, revisionNumber: '1' }, foreign: { id: quoteB, revisionNumber: '1' } };
+  if (route.path.startsWith('/api/customers/:id'))
+    return {
+      own: { id: catalogueA.customer.id, siteId: catalogueA.site.id },
+      foreign: { id: catalogueB.customer.id, siteId: catalogueB.site.id },
+    };
+  if (route.path.startsWith('/api/products/:id')) return { own: { id: catalogueA.product.id }, foreign: { id: catalogueB.product.id } };
+  if (route.path.startsWith('/api/product-imports/:id')) return { own: { id: catalogueA.job.id }, foreign: { id: catalogueB.job.id } };
   throw new Error(`route-matrix: add fixtures for the path parameters of ${route.method.toUpperCase()} ${route.path}`);
 }
 
@@ -92,6 +104,23 @@ describe('route x role x firm matrix', () => {
       'POST /api/password-resets': 'public',
       'POST /api/password-resets/complete': 'public',
       'GET /api/organization': 'owner,estimator,installer',
+      'GET /api/customers': 'owner,estimator',
+      'POST /api/customers': 'owner,estimator',
+      'GET /api/customers/:id': 'owner,estimator',
+      'PATCH /api/customers/:id': 'owner,estimator',
+      'POST /api/customers/:id/sites': 'owner,estimator',
+      'PATCH /api/customers/:id/sites/:siteId': 'owner,estimator',
+      'DELETE /api/customers/:id/sites/:siteId': 'owner,estimator',
+      'GET /api/products': 'owner,estimator',
+      'POST /api/products': 'owner,estimator',
+      'GET /api/products/:id': 'owner,estimator',
+      'PUT /api/products/:id': 'owner,estimator',
+      'POST /api/products/:id/deactivate': 'owner,estimator',
+      'POST /api/product-imports': 'owner,estimator',
+      'GET /api/product-imports/:id': 'owner,estimator',
+      'POST /api/product-imports/:id/preview': 'owner,estimator',
+      'POST /api/product-imports/:id/run': 'owner,estimator',
+      'GET /api/product-imports/:id/rejections.csv': 'owner,estimator',
       'GET /api/quotes': 'owner,estimator',
       'POST /api/quotes': 'owner,estimator',
       'GET /api/quotes/:id': 'owner,estimator',

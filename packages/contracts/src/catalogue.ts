@@ -192,6 +192,10 @@ export type ProductInputParsed = z.output<typeof ProductInput>;
 export const ProductUpdate = z.intersection(ProductInput, z.object({ version: Version }));
 export type ProductUpdate = z.input<typeof ProductUpdate>;
 
+// POST /api/products/:id/deactivate
+export const DeactivateProductRequest = z.object({ version: Version });
+export type DeactivateProductRequest = z.input<typeof DeactivateProductRequest>;
+
 const productOut = {
   id: z.string(),
   supplier: z.string(),
