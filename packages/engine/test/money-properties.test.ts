@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import {
   allocateMinor,
   computeQuoteTotals,
+  MoneyInputError,
   mulDiv,
   VAT_ROUNDINGS,
   type Discount,
@@ -200,6 +201,39 @@ describe('money properties', () => {
         }
       }),
       { numRuns: 2000 },
+    );
+  });
+});
+
+describe('malformed quotes give a clear MoneyInputError, never a crash', () => {
+  const junk = fc.oneof(fc.constant(undefined), fc.constant(null), fc.integer(), fc.double(), fc.string({ maxLength: 4 }), fc.boolean(), fc.dictionary(fc.string({ maxLength: 3 }), fc.integer(), { maxKeys: 2 }));
+  const maybe = <T>(a: fc.Arbitrary<T>) => fc.oneof(a, junk);
+  const disc = maybe(fc.record({ kind: maybe(fc.constantFrom('percent', 'fixed', 'other')), bp: maybe(fc.integer({ min: -5, max: 20_000 })), amountMinor: maybe(fc.integer({ min: -5, max: 500 })) }));
+  const lineArb2 = maybe(
+    fc.record({
+      id: maybe(fc.constantFrom('a', 'b', 'c')),
+      quantityMilli: maybe(fc.integer({ min: -5, max: 5000 })),
+      unitPriceMinor: maybe(fc.integer({ min: 0, max: 5000 })),
+      unitCostMinor: maybe(fc.integer({ min: 0, max: 5000 })),
+      vatRateBp: maybe(fc.constantFrom(2000, 500, 0, 20_000)),
+      discount: disc,
+      optional: maybe(fc.boolean()),
+      alternativeGroup: maybe(fc.constantFrom('g')),
+      selected: maybe(fc.boolean()),
+    }),
+  );
+  it('throws only MoneyInputError', () => {
+    fc.assert(
+      fc.property(maybe(fc.array(lineArb2, { maxLength: 4 })), maybe(fc.constantFrom(...VAT_ROUNDINGS, 'nearest')), disc, disc, (lines, vatRounding, discount, deposit) => {
+        try {
+          const t = computeQuoteTotals({ lines, vatRounding, discount, deposit } as unknown as QuoteInput);
+          expect(t.totalMinor).toBe(t.netMinor + t.vatMinor);
+        } catch (e) {
+          expect(e).toBeInstanceOf(MoneyInputError);
+          expect((e as MoneyInputError).message.length).toBeGreaterThan(10);
+        }
+      }),
+      { numRuns: 1000 },
     );
   });
 });

@@ -33,13 +33,24 @@ export class MoneyInputError extends EngineInputError {
   }
 }
 
+function shownValue(value: unknown): string {
+  if (typeof value === 'object' && value !== null) {
+    try {
+      return JSON.stringify(value) ?? 'an object';
+    } catch {
+      return 'an object';
+    }
+  }
+  return String(value);
+}
+
 /** Throw a clear MoneyInputError unless `value` is a safe integer. */
 export function assertSafeInteger(value: unknown, field: string): asserts value is number {
   if (typeof value !== 'number' || !Number.isSafeInteger(value)) {
     throw new MoneyInputError(
       'not-safe-integer',
       field,
-      `${field} must be a whole number of minor units (or thousandths) within ±${Number.MAX_SAFE_INTEGER}; got ${String(value)}.`,
+      `${field} must be a whole number of minor units (or thousandths) within ±${Number.MAX_SAFE_INTEGER}; got ${shownValue(value)}.`,
     );
   }
 }

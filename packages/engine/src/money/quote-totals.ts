@@ -101,6 +101,9 @@ const isCount = (v: unknown): v is number => typeof v === 'number' && Number.isS
 
 /** Validate a discount or deposit; field names are only built when something is wrong. */
 function checkDiscount(d: Discount, field: () => string): void {
+  if (typeof d !== 'object' || d === null) {
+    throw new MoneyInputError('bad-kind', field(), `${field()} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`);
+  }
   if (d.kind === 'percent') {
     if (!isCount(d.bp)) assertNonNegativeInteger(d.bp, `${field()}.bp`);
     if (d.bp > BASIS_POINTS) {
@@ -121,6 +124,9 @@ function takeFrom(baseMinor: number, d: Discount | Deposit): { amountMinor: numb
 
 /** Everything a quote adds up to. Throws MoneyInputError for malformed input. */
 export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
+  if (typeof input !== 'object' || input === null || !Array.isArray(input.lines)) {
+    throw new MoneyInputError('bad-quote', 'lines', 'A quote needs a list of lines (it may be empty).');
+  }
   const { lines, vatRounding } = input;
   if (!VAT_ROUNDINGS.includes(vatRounding)) {
     throw new MoneyInputError('bad-vat-rounding', 'vatRounding', `vatRounding must be one of ${VAT_ROUNDINGS.join(', ')}.`);
@@ -136,6 +142,9 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
 
   for (let i = 0; i < n; i++) {
     const line = lines[i]!;
+    if (typeof line !== 'object' || line === null) {
+      throw new MoneyInputError('bad-line', `lines[${i}]`, `lines[${i}] must be a line with an id, quantity, unit price and VAT rate.`);
+    }
     if (typeof line.id !== 'string' || line.id === '') {
       throw new MoneyInputError('missing-id', `lines[${i}].id`, `lines[${i}] needs an id.`);
     }
@@ -150,6 +159,9 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     if (line.unitCostMinor === undefined) missingCost++;
     else if (!isCount(line.unitCostMinor)) assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
     if (line.discount) checkDiscount(line.discount, () => `lines[${i}].discount`);
+    if (line.alternativeGroup !== undefined && (typeof line.alternativeGroup !== 'string' || line.alternativeGroup === '')) {
+      throw new MoneyInputError('bad-group', `lines[${i}].alternativeGroup`, `lines[${i}].alternativeGroup must be a non-empty name.`);
+    }
     if (line.optional && line.alternativeGroup !== undefined) {
       throw new MoneyInputError(
         'optional-and-alternative',
