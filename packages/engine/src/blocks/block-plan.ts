@@ -22,7 +22,7 @@ import {
   type ConnectorBlockType,
   type SeriesStringLayout,
 } from './connector-block';
-import { planEntries, type BlockEntries, type EntryCable } from './entry-seals';
+import { blockEntries, entryUse, type BlockEntries, type EntryUse } from './entry-seals';
 import { installerSteps, type InstallerStep } from './installer-steps';
 
 export interface BlockPlanInput {
@@ -130,10 +130,14 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
       terminals.push({ conductors: [returnIn, `link:${j}/core:2/end:A`], note: 'return leg to driver -, passing through' });
     }
 
-    const cables: EntryCable[] = [];
-    cables.push(fromDriver ? { cable: 'driver-lead', ref: input.string.driverLead } : { cable: `link:${j - 1}`, ref: linkRef });
-    for (const k of group) cables.push({ cable: `fitting:${k}`, ref: fittings[k - 1]?.tail });
-    if (!last) cables.push({ cable: `link:${j}`, ref: linkRef });
+    const uses: EntryUse[] = [];
+    uses.push(
+      fromDriver
+        ? entryUse(j, type, 'driver-lead', input.string.driverLead, findings)
+        : entryUse(j, type, `link:${j - 1}`, linkRef, findings),
+    );
+    for (const k of group) uses.push(entryUse(j, type, `fitting:${k}`, fittings[k - 1]?.tail, findings));
+    if (!last) uses.push(entryUse(j, type, `link:${j}`, linkRef, findings));
 
     blocks.push({
       number: j,
@@ -144,7 +148,7 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
       fittings: group,
       terminals,
       spareTerminals: type.terminals - terminals.length,
-      entries: planEntries(j, type, cables, findings),
+      entries: blockEntries(type, uses),
     });
     if (!last) links.push({ number: j, fromBlock: j, toBlock: j + 1, lengthM: null, cores: 2, forwardCore: 1, returnCore: 2 });
   }

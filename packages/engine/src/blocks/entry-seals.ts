@@ -28,42 +28,40 @@ export interface BlockEntries {
   cables: EntryUse[];
 }
 
-export interface EntryCable {
-  cable: string;
-  ref: BlockCableRef | undefined;
-}
-
-export function planEntries(
+/** How one cable (`driver-lead`, `fitting:3`, `link:2`) enters block `blockNumber`. */
+export function entryUse(
   blockNumber: number,
   type: ConnectorBlockType,
-  cables: readonly EntryCable[],
+  cable: string,
+  ref: BlockCableRef | undefined,
   findings: Finding[],
-): BlockEntries {
+): EntryUse {
   const range = type.entrySealRangeMm;
-  const uses: EntryUse[] = [];
-  let reducers = 0;
-  for (const c of cables) {
-    const d = c.ref?.outerDiameterMm;
-    let fit: EntryFit;
-    if (d === undefined || !range) fit = 'size-unknown';
-    else if (d < range.min) fit = 'seal-with-reducer';
-    else if (d > range.max) fit = 'too-large';
-    else fit = 'seal';
-    if (fit === 'seal-with-reducer') reducers++;
-    if (fit === 'too-large') {
-      findings.push(
-        finding(
-          'cable-too-large-for-entry',
-          'error',
-          `The ${describeCable(c.cable)} (${d} mm across) is too thick for an entry of block ${blockNumber}, which seals ` +
-            `${range!.min}-${range!.max} mm. Choose a block with larger entries.`,
-          { subject: `block:${blockNumber}`, values: { outerDiameterMm: d!, entryMaxMm: range!.max } },
-        ),
-      );
-    }
-    uses.push({ cable: c.cable, outerDiameterMm: d ?? null, fit });
+  const d = ref?.outerDiameterMm;
+  let fit: EntryFit;
+  if (d === undefined || !range) fit = 'size-unknown';
+  else if (d < range.min) fit = 'seal-with-reducer';
+  else if (d > range.max) fit = 'too-large';
+  else fit = 'seal';
+  if (fit === 'too-large') {
+    findings.push(
+      finding(
+        'cable-too-large-for-entry',
+        'error',
+        `The ${describeCable(cable)} (${d} mm across) is too thick for an entry of block ${blockNumber}, which seals ` +
+          `${range!.min}-${range!.max} mm. Choose a block with larger entries.`,
+        { subject: `block:${blockNumber}`, values: { outerDiameterMm: d!, entryMaxMm: range!.max } },
+      ),
+    );
   }
-  const used = cables.length;
+  return { cable, outerDiameterMm: d ?? null, fit };
+}
+
+/** Seals, reducers and blanking plugs for a block's entries. */
+export function blockEntries(type: ConnectorBlockType, uses: EntryUse[]): BlockEntries {
+  let reducers = 0;
+  for (const u of uses) if (u.fit === 'seal-with-reducer') reducers++;
+  const used = uses.length;
   const spare = Math.max(0, type.cableEntries - used);
   return { total: type.cableEntries, used, spare, seals: used, reducers, blankingPlugs: spare, cables: uses };
 }

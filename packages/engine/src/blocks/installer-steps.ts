@@ -47,12 +47,15 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
       ' carries the return back to the driver -.',
     );
   }
-  const fittingNames = labels.map((label, i) => (label ? `fitting ${i + 1} (${label})` : `fitting ${i + 1}`));
   const parts: (string | number)[] = [];
   const scan = newConductorScan();
   const describe = (text: string): void => {
     if (!scanConductorEnd(text, scan)) parts.push(text);
-    else if (scan.kind === 'fitting') parts.push(fittingNames[scan.fitting - 1] ?? `fitting ${scan.fitting}`, scan.minus ? ' -' : ' +');
+    else if (scan.kind === 'fitting') {
+      const label = labels[scan.fitting - 1];
+      if (label) parts.push('fitting ', scan.fitting, ' (', label, scan.minus ? ') -' : ') +');
+      else parts.push('fitting ', scan.fitting, scan.minus ? ' -' : ' +');
+    }
     else if (scan.kind === 'driver') parts.push(scan.minus ? 'driver lead -' : 'driver lead +');
     else parts.push('link cable ', scan.link, ' core ', scan.core, scan.endB ? ' (end B)' : ' (end A)');
   };
@@ -76,16 +79,18 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
       cableList(block.fittings, e.cables),
       '.',
     );
-    block.terminals.forEach((t, i) => {
+    for (let i = 0; i < block.terminals.length; i++) {
+      const t = block.terminals[i]!;
       parts.length = 0;
       parts.push('Block ', block.number, ' terminal ', i + 1, ': land ');
-      t.conductors.forEach((c, ci) => {
+      for (let ci = 0; ci < t.conductors.length; ci++) {
         if (ci > 0) parts.push(ci === t.conductors.length - 1 ? ' and ' : ', ');
-        describe(c);
-      });
-      parts.push(t.note ? ` (${t.note}).` : '.');
+        describe(t.conductors[ci]!);
+      }
+      if (t.note) parts.push(' (', t.note, ').');
+      else parts.push('.');
       addParts(block.number, parts);
-    });
+    }
     if (block.spareTerminals > 0) {
       const s = block.spareTerminals === 1 ? '' : 's';
       add(block.number, 'Leave block ', block.number, "'s other ", block.spareTerminals, ' terminal', s, ' empty.');

@@ -84,7 +84,7 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
   const termNumber = new Int32Array(terminalTotal);
   let nextTerminal = 0;
   const endTerminal = new Int32Array(2 * n + 2).fill(NONE);
-  const endText: string[] = new Array<string>(2 * n + 2);
+  const endText: string[] = wantNodes ? new Array<string>(2 * n + 2) : [];
   const repeats = new Map<number, number[]>(); // element end -> every terminal it lands on
   const linkEnds = new Map<number | string, { link: number; core: number; a: number[]; b: number[] }>();
   const scan = newConductorScan();
