@@ -6,7 +6,8 @@ import { defineConfig } from 'tsup';
  * node_modules (native addons such as argon2 and sqlite3 cannot be bundled).
  */
 export default defineConfig({
-  entry: { main: 'src/main.ts' },
+  // the quote PDF renders in a worker thread: its entry sits beside main.js
+  entry: { main: 'src/main.ts', 'pdf-worker': 'src/modules/quote-pdf/pdf-worker.ts' },
   format: ['esm'],
   platform: 'node',
   target: 'node20',

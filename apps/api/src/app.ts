@@ -17,6 +17,9 @@ import { customersRouter } from './modules/customers/router';
 import { productImportsRouter } from './modules/catalogue/import-router';
 import { productsRouter } from './modules/catalogue/router';
 import { quoteBodyParser, quotesRouter } from './modules/quotes/router';
+import { photosRouter } from './modules/photos/router';
+import { quotePdfRouter } from './modules/quote-pdf/router';
+import { quoteSendingRouter } from './modules/quote-sending/router';
 
 export interface CreateAppOptions extends AppDeps {
   /** Built front ends to serve; omitted in api-only tests. */
@@ -99,6 +102,9 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   api.use(productsRouter(deps, routes));
   api.use(productImportsRouter(deps, routes));
   api.use(quotesRouter(deps, routes));
+  api.use(photosRouter(deps, routes));
+  api.use(quotePdfRouter(deps, routes));
+  api.use(quoteSendingRouter(deps, routes));
   api.use('/api', apiNotFound);
   app.use(api);
 

@@ -6,4 +6,6 @@ export * from './estimate';
 export * from './customers';
 export * from './catalogue';
 export * from './price-list-import';
+export * from './photos';
+export * from './quote-sending';
 export * from './quotes';

@@ -6,6 +6,13 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  attachments?: MailAttachment[];
+}
+
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
 }
 
 /** Sends e-mail. The api's only way out to a mail server. */
@@ -24,7 +31,7 @@ export function createSmtpMailer(mail: AppConfig['mail']): Mailer {
   });
   return {
     async send(m) {
-      await transport.sendMail({ from: mail.from, to: m.to, subject: m.subject, text: m.text, ...(m.html ? { html: m.html } : {}) });
+      await transport.sendMail({ from: mail.from, to: m.to, subject: m.subject, text: m.text, ...(m.html ? { html: m.html } : {}), ...(m.attachments ? { attachments: m.attachments } : {}) });
     },
     close: () => transport.close(),
   };

@@ -1,0 +1,78 @@
+import { Worker } from 'node:worker_threads';
+import type { QuotePdfModel } from './pdf-model';
+import { renderQuotePdf } from './render-quote-pdf';
+
+/** Turns a quote's PDF model into bytes. */
+export interface PdfRenderer {
+  render(model: QuotePdfModel): Promise<Buffer>;
+  close(): Promise<void>;
+}
+
+type Reply = { id: number; pdf: Uint8Array } | { id: number; error: string };
+
+/**
+ * Renders in one worker thread so a long layout never blocks requests. Started on first use;
+ * unref'd so it never keeps the process alive. From the sources (tests, `npm run dev`) the
+ * worker loads its TypeScript through tsx; from the bundle it loads dist/pdf-worker.js.
+ */
+export function createWorkerPdfRenderer(): PdfRenderer {
+  let worker: Worker | null = null;
+  let next = 1;
+  const pending = new Map<number, { resolve: (b: Buffer) => void; reject: (e: Error) => void }>();
+
+  const failAll = (err: Error) => {
+    for (const p of pending.values()) p.reject(err);
+    pending.clear();
+    worker = null;
+  };
+
+  function start(): Worker {
+    const fromSource = import.meta.url.endsWith('.ts');
+    const w = fromSource
+      ? // Node 20 workers ignore --import loaders: load tsx's API in the worker, then the module
+        new Worker(
+          `import('tsx/esm/api').then((tsx) => tsx.tsImport(${JSON.stringify(new URL('./pdf-worker.ts', import.meta.url).href)}, ${JSON.stringify(import.meta.url)}))`,
+          { eval: true },
+        )
+      : new Worker(new URL('./pdf-worker.js', import.meta.url));
+    w.unref();
+    w.on('message', (reply: Reply) => {
+      const p = pending.get(reply.id);
+      if (!p) return;
+      pending.delete(reply.id);
+      if ('error' in reply) p.reject(new Error(`The PDF could not be rendered: ${reply.error}`));
+      else p.resolve(Buffer.from(reply.pdf.buffer, reply.pdf.byteOffset, reply.pdf.byteLength));
+    });
+    w.on('error', (err) => failAll(err));
+    w.on('exit', (code) => failAll(new Error(`The PDF worker stopped (exit ${code}).`)));
+    return w;
+  }
+
+  return {
+    render(model) {
+      worker ??= start();
+      const id = next++;
+      const w = worker;
+      return new Promise<Buffer>((resolve, reject) => {
+        pending.set(id, { resolve, reject });
+        w.postMessage({ id, model });
+      });
+    },
+    async close() {
+      const w = worker;
+      worker = null;
+      if (w) await w.terminate();
+    },
+  };
+}
+
+/** Renders on the calling thread: for scripts and as a fallback. */
+export const inlinePdfRenderer: PdfRenderer = { render: renderQuotePdf, close: async () => {} };
+
+let shared: PdfRenderer | null = null;
+
+/** The process's PDF worker (one thread: two cores are shared with the api and SQLite). */
+export function sharedPdfRenderer(): PdfRenderer {
+  shared ??= createWorkerPdfRenderer();
+  return shared;
+}

@@ -1,0 +1,70 @@
+import { z } from 'zod';
+
+/**
+ * Sending a quote revision to the homeowner: an e-mail with the PDF attached and a portal
+ * link. The link carries a fresh 32-byte token; only its SHA-256 is stored. It expires with
+ * the quote's validity, is scoped to one revision, and can be revoked.
+ */
+export const QuoteRevisionParams = z.object({
+  id: z.uuid('This id is not valid.'),
+  revisionId: z.uuid('This id is not valid.'),
+});
+export type QuoteRevisionParams = z.infer<typeof QuoteRevisionParams>;
+
+const Message = z.string().trim().max(4000, 'At most 4,000 characters.');
+
+export const SendQuoteRequest = z.object({
+  /** Defaults to the customer's e-mail address. */
+  to: z.email('Enter a valid e-mail address.').max(254).optional(),
+  /** A personal note above the standard text. */
+  message: Message.optional(),
+  /** Codes of warnings the estimator has read and accepts (circuit findings, later). */
+  acknowledged: z.array(z.string().max(80)).max(200).optional(),
+});
+export type SendQuoteRequest = z.infer<typeof SendQuoteRequest>;
+
+export const SendPreviewQuery = z.object({ message: Message.optional(), to: z.string().max(254).optional() });
+export type SendPreviewQuery = z.infer<typeof SendPreviewQuery>;
+
+export const SendPreviewResponse = z.object({
+  to: z.string().nullable(),
+  subject: z.string(),
+  text: z.string(),
+  attachmentName: z.string(),
+  /** Why it cannot be sent yet; empty when it can. */
+  blockers: z.array(z.object({ code: z.string(), message: z.string() })),
+});
+export type SendPreviewResponse = z.infer<typeof SendPreviewResponse>;
+
+export const PortalLinkSummary = z.object({
+  id: z.string(),
+  sentTo: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+  revokedAt: z.string().nullable(),
+  /** Not revoked and not expired. */
+  active: z.boolean(),
+});
+export type PortalLinkSummary = z.infer<typeof PortalLinkSummary>;
+
+export const RevisionSendingState = z.object({
+  revisionId: z.string(),
+  state: z.enum(['draft', 'sent', 'superseded']),
+  sentAt: z.string().nullable(),
+  contentHash: z.string().nullable(),
+  validUntil: z.string().nullable(),
+  links: z.array(PortalLinkSummary),
+});
+export type RevisionSendingState = z.infer<typeof RevisionSendingState>;
+
+export const SendQuoteResponse = z.object({ sending: RevisionSendingState, sentTo: z.string() });
+export type SendQuoteResponse = z.infer<typeof SendQuoteResponse>;
+
+export const RevokeLinksResponse = z.object({ sending: RevisionSendingState, revoked: z.number().int() });
+export type RevokeLinksResponse = z.infer<typeof RevokeLinksResponse>;
+
+export const SendingStateResponse = z.object({ sending: RevisionSendingState });
+export type SendingStateResponse = z.infer<typeof SendingStateResponse>;
+
+/** The portal path a link opens: `${publicUrl}${portalQuotePath(token)}`. */
+export const portalQuotePath = (token: string): string => `/portal/q/${token}`;
