@@ -148,8 +148,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     if (typeof line.id !== 'string' || line.id === '') {
       throw new MoneyInputError('missing-id', `lines[${i}].id`, `lines[${i}] needs an id.`);
     }
-    if (ids.has(line.id)) throw new MoneyInputError('duplicate-id', `lines[${i}].id`, `Line id "${line.id}" is used twice.`);
     ids.add(line.id);
+    if (ids.size !== i + 1) throw new MoneyInputError('duplicate-id', `lines[${i}].id`, `Line id "${line.id}" is used twice.`);
     if (!isCount(line.quantityMilli)) assertNonNegativeInteger(line.quantityMilli, `lines[${i}].quantityMilli`);
     if (!isCount(line.unitPriceMinor)) assertNonNegativeInteger(line.unitPriceMinor, `lines[${i}].unitPriceMinor`);
     if (!isCount(line.vatRateBp)) assertNonNegativeInteger(line.vatRateBp, `lines[${i}].vatRateBp`);
