@@ -10,7 +10,10 @@ import { ROLE_HOME } from '../features/session/role-home';
 import { AppShell } from '../features/shell/components/app-shell';
 import { rolesFor } from '../features/shell/screens';
 import { teamQueryOptions } from '../features/team/api/get-team';
-import { QuotesHome } from '../features/quotes/components/quotes-home';
+import { quotesQueryOptions } from '../features/quotes/api/list-quotes';
+import { quoteQueryOptions } from '../features/quotes/api/get-quote';
+import { QuoteEditorPage } from '../features/quotes/components/quote-editor-page';
+import { QuotesHome, quoteFiltersFrom } from '../features/quotes/components/quotes-home';
 import { RouteError } from './route-error';
 import { requireRole, requireUser, signedOutOnly } from './route-guards';
 
@@ -50,6 +53,16 @@ export function createRouter(queryClient: QueryClient) {
           element: <QuotesHome />,
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/quotes'));
+            await queryClient.prefetchQuery(quotesQueryOptions(quoteFiltersFrom(new URL(request.url).searchParams)));
+            return null;
+          },
+        },
+        {
+          path: 'quotes/:quoteId',
+          element: <QuoteEditorPage />,
+          loader: async ({ request, params }) => {
+            await requireRole(queryClient, request, rolesFor('/quotes'));
+            if (params.quoteId) await queryClient.prefetchQuery(quoteQueryOptions(params.quoteId));
             return null;
           },
         },
