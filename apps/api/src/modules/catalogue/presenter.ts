@@ -1,5 +1,5 @@
-import { PRODUCT_KINDS as CONTRACT_KINDS, Product as ProductView } from '@gloaming/contracts';
-import { PRODUCT_KINDS as DB_KINDS, type Product } from '@gloaming/db';
+import { type PRODUCT_KINDS as CONTRACT_KINDS, Product as ProductView } from '@gloaming/contracts';
+import { type PRODUCT_KINDS as DB_KINDS, type Product } from '@gloaming/db';
 
 // The database and the contracts list the same kinds; this fails to compile if they drift.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;

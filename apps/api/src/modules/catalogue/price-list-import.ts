@@ -1,5 +1,5 @@
 import type { ColumnMapping, ImportRejection, ProductInputParsed } from '@gloaming/contracts';
-import { ImportJob, Organization, Product, type Database, type EntityManager } from '@gloaming/db';
+import { ImportJob, Organization, Product, openDatabase, type Database, type EntityManager } from '@gloaming/db';
 import { readRow } from './price-list-row';
 import { rowValues, type PriceListTable } from './price-list-file';
 
@@ -111,6 +111,23 @@ export async function writePlan(em: EntityManager, organizationId: string, plan:
   });
 }
 
+/**
+ * The write transaction holds its connection until it commits. The app's pool has one SQLite
+ * connection, so the import writes through a second one of its own: with WAL, every other
+ * request keeps reading on the first while the import writes. (An in-memory database cannot
+ * be shared, so it writes on the app's connection.)
+ */
+async function withWriterConnection(orm: Database, work: (writer: Database) => Promise<void>): Promise<void> {
+  const file = orm.config.get('dbName');
+  if (!file || file === ':memory:') return work(orm);
+  const writer = await openDatabase({ file });
+  try {
+    await work(writer);
+  } finally {
+    await writer.close(true);
+  }
+}
+
 /** Run a whole import for a job whose file is read: plan, write, and record the outcome. */
 export async function runImport(
   orm: Database,
@@ -124,7 +141,7 @@ export async function runImport(
   };
   try {
     const plan = await planImport(orm.em.fork(), job.organizationId, job.supplier, table, mapping, progress);
-    await writePlan(orm.em.fork(), job.organizationId, plan);
+    await withWriterConnection(orm, (writer) => writePlan(writer.em.fork(), job.organizationId, plan));
     await orm.em.fork().nativeUpdate(
       ImportJob,
       { id: job.id },
