@@ -299,7 +299,7 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
     : '';
 
   return (
-    <div className="relative flex min-h-0 flex-1 flex-col">
+    <div className="relative flex min-h-0 min-w-0 flex-1 flex-col">
       <div
         ref={gridRef}
         role="grid"

@@ -183,7 +183,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
         </div>
       ) : null}
 
-      <div className="flex min-h-0 flex-1 gap-3">
+      <div className="flex min-h-0 min-w-0 flex-1 gap-3">
         <EstimateGrid editor={editor} settings={settings} lineTotals={lineTotals} readOnly={readOnly} draft={draft} onDraftChange={setDraft} onNotice={onNotice} />
         <div className="flex flex-col gap-3">
           {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} />}
