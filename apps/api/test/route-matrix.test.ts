@@ -11,16 +11,21 @@ import type { RegisteredRoute } from '../src/http/routes';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
 import { createCatalogueFixture } from './catalogue-fixtures';
+import { createQuoteMediaFixture } from './image-fixtures';
 
 let t: TestServer;
 let quoteA: string;
 let quoteB: string;
+let mediaA: { photoId: string; revisionId: string };
+let mediaB: { photoId: string; revisionId: string };
 let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
 beforeAll(async () => {
   t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
   quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
   quoteB = (await createQuoteFixture(t.orm.em.fork(), t.firmB)).quote.id;
+  mediaA = await createQuoteMediaFixture(t.orm.em.fork(), t.firmA.firm.id, quoteA, t.config.dataDir);
+  mediaB = await createQuoteMediaFixture(t.orm.em.fork(), t.firmB.firm.id, quoteB, t.config.dataDir);
   catalogueA = await createCatalogueFixture(t.orm.em.fork(), t.firmA, t.config.dataDir);
   catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
 });
@@ -55,14 +60,16 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
   if (route.path.startsWith('/api/users/:id'))
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
   if (route.path.startsWith('/api/quotes/:id'))
-    return { own: { id: quoteA, revisionNumber: '1' }, foreign: { id: quoteB, revisionNumber: '1' } };
+    return { own: { id: quoteA, revisionNumber: '1', ...mediaA }, foreign: { id: quoteB, revisionNumber: '1', ...mediaB } };
   if (route.path.startsWith('/api/customers/:id'))
     return {
       own: { id: catalogueA.customer.id, siteId: catalogueA.site.id },
       foreign: { id: catalogueB.customer.id, siteId: catalogueB.site.id },
     };
-  if (route.path.startsWith('/api/products/:id')) return { own: { id: catalogueA.product.id }, foreign: { id: catalogueB.product.id } };
-  if (route.path.startsWith('/api/product-imports/:id')) return { own: { id: catalogueA.job.id }, foreign: { id: catalogueB.job.id } };
+  if (route.path.startsWith('/api/products/:id'))
+    return { own: { id: catalogueA.product.id }, foreign: { id: catalogueB.product.id } };
+  if (route.path.startsWith('/api/product-imports/:id'))
+    return { own: { id: catalogueA.job.id }, foreign: { id: catalogueB.job.id } };
   throw new Error(`route-matrix: add fixtures for the path parameters of ${route.method.toUpperCase()} ${route.path}`);
 }
 
@@ -89,7 +96,10 @@ describe('route x role x firm matrix', () => {
 
   it('declares the policies we mean: a changed policy must be changed here too, on purpose', () => {
     const table = Object.fromEntries(
-      t.routes.map((r) => [`${r.method.toUpperCase()} ${r.path}`, r.policy.kind === 'public' ? 'public' : r.policy.roles.join(',')]),
+      t.routes.map((r) => [
+        `${r.method.toUpperCase()} ${r.path}`,
+        r.policy.kind === 'public' ? 'public' : r.policy.roles.join(','),
+      ]),
     );
     expect(table).toEqual({
       'GET /api/health': 'public',
@@ -128,6 +138,19 @@ describe('route x role x firm matrix', () => {
       'GET /api/quotes/:id/revisions/:revisionNumber': 'owner,estimator',
       'PUT /api/quotes/:id/revisions/:revisionNumber': 'owner,estimator',
       'GET /api/quotes/:id/events': 'owner,estimator',
+      'GET /api/quotes/:id/photos': 'owner,estimator',
+      'POST /api/quotes/:id/photos': 'owner,estimator',
+      'PUT /api/quotes/:id/photos/order': 'owner,estimator',
+      'PATCH /api/quotes/:id/photos/:photoId': 'owner,estimator',
+      'DELETE /api/quotes/:id/photos/:photoId': 'owner,estimator',
+      'GET /api/quotes/:id/photos/:photoId/image': 'owner,estimator',
+      'GET /api/quotes/:id/photos/:photoId/thumbnail': 'owner,estimator',
+      'GET /api/quotes/:id/revisions/:revisionId/pdf': 'owner,estimator',
+      'GET /api/quotes/:id/revisions/:revisionId/sending': 'owner,estimator',
+      'GET /api/quotes/:id/revisions/:revisionId/send-preview': 'owner,estimator',
+      'POST /api/quotes/:id/revisions/:revisionId/send': 'owner,estimator',
+      'POST /api/quotes/:id/revisions/:revisionId/resend': 'owner,estimator',
+      'POST /api/quotes/:id/revisions/:revisionId/revoke': 'owner,estimator',
     });
   });
 
@@ -142,14 +165,17 @@ describe('route x role x firm matrix', () => {
         const res = await call(route, actor, fill(route.path, own));
         const ok = expected === 'not 401/403' ? res.status !== 401 && res.status !== 403 : res.status === expected;
         if (!ok) failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: got ${res.status}, want ${expected}`);
-        if (res.status >= 500) failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: server error ${res.status}`);
+        if (res.status >= 500)
+          failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: server error ${res.status}`);
         if (res.status >= 400 && !String(res.headers['content-type']).includes('application/problem+json'))
           failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor}: ${res.status} without problem+json`);
 
         if (route.params.length > 0 && allowed && actor !== 'signed-out') {
           const other = await call(route, actor, fill(route.path, foreign));
           if (other.status !== 404)
-            failures.push(`${route.method.toUpperCase()} ${route.path} as ${actor} with another firm's id: got ${other.status}, want 404`);
+            failures.push(
+              `${route.method.toUpperCase()} ${route.path} as ${actor} with another firm's id: got ${other.status}, want 404`,
+            );
         }
       }
     }

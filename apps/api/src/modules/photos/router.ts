@@ -1,8 +1,10 @@
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
+import type { z } from 'zod';
 import { IdParams, QuotePhotoParams, ReorderPhotosRequest, UpdatePhotoRequest } from '@gloaming/contracts';
 import type { Photo } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
+import { parsed, validate } from '../../http/validate';
 import type { FileStorage } from '../../storage/storage';
 import { loadQuoteForFirm } from '../quotes/service';
 import { presentPhoto } from './presenter';
@@ -28,6 +30,17 @@ async function sendImage(res: Response, storage: FileStorage, photo: Photo, whic
     `inline; filename="photo-${photo.position + 1}.${which === 'image' ? key.split('.').pop() : 'jpg'}"`,
   );
   res.type(which === 'image' ? photo.contentType : 'image/jpeg').send(bytes);
+}
+
+/**
+ * The body, validated by the shared validator after the quote was found: another firm's id is
+ * a 404 whatever the body holds.
+ */
+async function bodyAfterLookup<T extends z.ZodType>(req: Request, res: Response, schema: T): Promise<z.output<T>> {
+  await new Promise<void>((resolve, reject) =>
+    validate({ body: schema })(req, res, (err?: unknown) => (err ? reject(err) : resolve())),
+  );
+  return parsed<{ body: T }>(req).body as z.output<T>;
 }
 
 export function photosRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
@@ -62,10 +75,11 @@ export function photosRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
       path: '/:id/photos/order',
       summary: "Reorder a quote's photos",
       policy: quoteStaff,
-      schemas: { params: IdParams, body: ReorderPhotosRequest },
-      handler: async ({ res, em, input, auth }) => {
+      schemas: { params: IdParams },
+      handler: async ({ req, res, em, input, auth }) => {
         const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
-        res.json({ photos: (await reorderQuotePhotos(em, quote, input.body)).map(presentPhoto) });
+        const body = await bodyAfterLookup(req, res, ReorderPhotosRequest);
+        res.json({ photos: (await reorderQuotePhotos(em, quote, body)).map(presentPhoto) });
       },
     }),
     route({
@@ -73,11 +87,12 @@ export function photosRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
       path: '/:id/photos/:photoId',
       summary: "Change a photo's caption or whether it is on the quote",
       policy: quoteStaff,
-      schemas: { params: QuotePhotoParams, body: UpdatePhotoRequest },
-      handler: async ({ res, em, input, auth }) => {
+      schemas: { params: QuotePhotoParams },
+      handler: async ({ req, res, em, input, auth }) => {
         const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
         const photo = await findQuotePhoto(em, quote, input.params.photoId);
-        res.json({ photo: presentPhoto(await updateQuotePhoto(em, photo, input.body)) });
+        const body = await bodyAfterLookup(req, res, UpdatePhotoRequest);
+        res.json({ photo: presentPhoto(await updateQuotePhoto(em, photo, body)) });
       },
     }),
     route({
