@@ -100,7 +100,9 @@ export interface QuoteTotals {
 const isCount = (v: unknown): v is number => typeof v === 'number' && Number.isSafeInteger(v) && v >= 0;
 
 /** Validate a discount or deposit; field names are only built when something is wrong. */
-function checkDiscount(d: Discount, field: () => string): void {
+function checkDiscount(d: Discount, where: string | number): void {
+  // field names are only built when something is wrong (no per-line garbage)
+  const field = () => (typeof where === 'number' ? `lines[${where}].discount` : where);
   if (typeof d !== 'object' || d === null) {
     throw new MoneyInputError('bad-kind', field(), `${field()} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`);
   }
@@ -116,10 +118,15 @@ function checkDiscount(d: Discount, field: () => string): void {
   }
 }
 
-/** Amount a discount or deposit takes off `baseMinor`; `capped` when a fixed one was larger. */
-function takeFrom(baseMinor: number, d: Discount | Deposit): { amountMinor: number; capped: boolean } {
-  if (d.kind === 'percent') return { amountMinor: applyBasisPoints(baseMinor, d.bp, 'half-up'), capped: false };
-  return d.amountMinor > baseMinor ? { amountMinor: baseMinor, capped: true } : { amountMinor: d.amountMinor, capped: false };
+/** Amount a discount or deposit takes off `baseMinor` (a fixed one is capped at the base). */
+function takeFrom(baseMinor: number, d: Discount | Deposit): number {
+  if (d.kind === 'percent') return applyBasisPoints(baseMinor, d.bp, 'half-up');
+  return d.amountMinor > baseMinor ? baseMinor : d.amountMinor;
+}
+
+/** Was a fixed discount or deposit larger than what it applies to? */
+function capped(baseMinor: number, d: Discount | Deposit): boolean {
+  return d.kind === 'fixed' && d.amountMinor > baseMinor;
 }
 
 /** Everything a quote adds up to. Throws MoneyInputError for malformed input. */
@@ -131,8 +138,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   if (!VAT_ROUNDINGS.includes(vatRounding)) {
     throw new MoneyInputError('bad-vat-rounding', 'vatRounding', `vatRounding must be one of ${VAT_ROUNDINGS.join(', ')}.`);
   }
-  if (input.discount) checkDiscount(input.discount, () => 'discount');
-  if (input.deposit) checkDiscount(input.deposit, () => 'deposit');
+  if (input.discount) checkDiscount(input.discount, 'discount');
+  if (input.deposit) checkDiscount(input.deposit, 'deposit');
   const findings: Finding[] = [];
   const n = lines.length;
   const ids = new Set<string>();
@@ -158,7 +165,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     }
     if (line.unitCostMinor === undefined) missingCost++;
     else if (!isCount(line.unitCostMinor)) assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
-    if (line.discount) checkDiscount(line.discount, () => `lines[${i}].discount`);
+    if (line.discount) checkDiscount(line.discount, i);
     if (line.alternativeGroup !== undefined && (typeof line.alternativeGroup !== 'string' || line.alternativeGroup === '')) {
       throw new MoneyInputError('bad-group', `lines[${i}].alternativeGroup`, `lines[${i}].alternativeGroup must be a non-empty name.`);
     }
@@ -173,9 +180,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     const grossMinor = extendMinor(line.quantityMilli, line.unitPriceMinor, 'half-up');
     let lineDiscountMinor = 0;
     if (line.discount) {
-      const t = takeFrom(grossMinor, line.discount);
-      lineDiscountMinor = t.amountMinor;
-      if (t.capped) {
+      lineDiscountMinor = takeFrom(grossMinor, line.discount);
+      if (capped(grossMinor, line.discount)) {
         findings.push(
           finding('line-discount-capped', 'warning', `The discount on line "${line.id}" is more than the line; it has been limited to the line amount.`, {
             subject: `line:${line.id}`,
@@ -248,9 +254,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
 
   let quoteDiscountMinor = 0;
   if (input.discount) {
-    const t = takeFrom(preQuoteNet, input.discount);
-    quoteDiscountMinor = t.amountMinor;
-    if (t.capped) {
+    quoteDiscountMinor = takeFrom(preQuoteNet, input.discount);
+    if (capped(preQuoteNet, input.discount)) {
       findings.push(
         finding('quote-discount-capped', 'warning', 'The discount on the quote is more than the quote; it has been limited to the quote amount.', {
           subject: 'quote',
@@ -296,8 +301,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
 
   let deposit: DepositSplit | null = null;
   if (input.deposit) {
-    const t = takeFrom(totalMinor, input.deposit);
-    if (t.capped) {
+    const depositMinor = takeFrom(totalMinor, input.deposit);
+    if (capped(totalMinor, input.deposit)) {
       findings.push(
         finding('deposit-capped', 'warning', 'The deposit asked is more than the quote total; it has been limited to the total.', {
           subject: 'deposit',
@@ -305,7 +310,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
         }),
       );
     }
-    deposit = { depositMinor: t.amountMinor, balanceMinor: totalMinor - t.amountMinor };
+    deposit = { depositMinor, balanceMinor: totalMinor - depositMinor };
   }
 
   if (missingCost > 0) {
