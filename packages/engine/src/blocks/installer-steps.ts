@@ -11,15 +11,10 @@ export interface InstallerStep {
   text: string;
 }
 
-/**
- * Step texts are joined from parts rather than concatenated: a schedule of thousands of
- * terminals then holds compact flat strings, not chains of fragments.
- */
 /** `labels[k-1]` names fitting k; an empty label leaves the fitting by number only. */
 export function installerSteps(plan: BlockPlan, labels: readonly string[]): InstallerStep[] {
   const steps: InstallerStep[] = [];
   const add = (block: number | null, ...parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
-  const addParts = (block: number, parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
   add(
     null,
     "Switch off and isolate the driver's supply before you start. Mains-side work, protective devices and " +
@@ -47,17 +42,32 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
       ' carries the return back to the driver -.',
     );
   }
-  const parts: (string | number)[] = [];
-  const scan = newConductorScan();
-  const describe = (text: string): void => {
-    if (!scanConductorEnd(text, scan)) parts.push(text);
-    else if (scan.kind === 'fitting') {
-      const label = labels[scan.fitting - 1];
-      if (label) parts.push('fitting ', scan.fitting, ' (', label, scan.minus ? ') -' : ') +');
-      else parts.push('fitting ', scan.fitting, scan.minus ? ' -' : ' +');
+  // "fitting 3 (Oak uplight)", made once per fitting: each appears on two terminals.
+  const names: (string | undefined)[] = new Array<string | undefined>(labels.length + 1);
+  const nameOf = (k: number): string => {
+    let name = names[k];
+    if (name === undefined) {
+      const label = labels[k - 1];
+      name = label ? `fitting ${k} (${label})` : `fitting ${k}`;
+      names[k] = name;
     }
-    else if (scan.kind === 'driver') parts.push(scan.minus ? 'driver lead -' : 'driver lead +');
-    else parts.push('link cable ', scan.link, ' core ', scan.core, scan.endB ? ' (end B)' : ' (end A)');
+    return name;
+  };
+  const scan = newConductorScan();
+  const describe = (text: string): string => {
+    if (!scanConductorEnd(text, scan)) return text;
+    const sign = scan.minus ? '-' : '+';
+    if (scan.kind === 'driver') return `driver lead ${sign}`;
+    if (scan.kind === 'link') return `link cable ${scan.link} core ${scan.core} (end ${scan.endB ? 'B' : 'A'})`;
+    return `${nameOf(scan.fitting)} ${sign}`;
+  };
+  /** Step text for a joint between two fittings (the common case) in one go; null otherwise. */
+  const fittingJoint = (head: string, a: string, b: string, note: string): string | null => {
+    if (!scanConductorEnd(a, scan) || scan.kind !== 'fitting') return null;
+    const ka = scan.fitting;
+    const sa = scan.minus ? '-' : '+';
+    if (!scanConductorEnd(b, scan) || scan.kind !== 'fitting') return null;
+    return `${head}${nameOf(ka)} ${sa} and ${nameOf(scan.fitting)} ${scan.minus ? '-' : '+'}${note}.`;
   };
   for (const block of plan.blocks) {
     const e = block.entries;
@@ -81,15 +91,13 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
     );
     for (let i = 0; i < block.terminals.length; i++) {
       const t = block.terminals[i]!;
-      parts.length = 0;
-      parts.push('Block ', block.number, ' terminal ', i + 1, ': land ');
-      for (let ci = 0; ci < t.conductors.length; ci++) {
-        if (ci > 0) parts.push(ci === t.conductors.length - 1 ? ' and ' : ', ');
-        describe(t.conductors[ci]!);
-      }
-      if (t.note) parts.push(' (', t.note, ').');
-      else parts.push('.');
-      addParts(block.number, parts);
+      const c = t.conductors;
+      const head = `Block ${block.number} terminal ${i + 1}: land `;
+      const note = t.note ? ` (${t.note})` : '';
+      const text =
+        (c.length === 2 ? fittingJoint(head, c[0]!, c[1]!, note) : null) ??
+        `${head}${c.length === 2 ? `${describe(c[0]!)} and ${describe(c[1]!)}` : list(c.map(describe))}${note}.`;
+      steps.push({ block: block.number, text: flat(text) });
     }
     if (block.spareTerminals > 0) {
       const s = block.spareTerminals === 1 ? '' : 's';
@@ -111,6 +119,16 @@ function cableList(fittings: readonly number[], cables: readonly EntryUse[]): st
   const tails = fittings.length === 1 ? `tail of fitting ${fittings[0]}` : `tails of ${fittingRange(fittings)}`;
   names.splice(1, 0, tails);
   return list(names);
+}
+
+/**
+ * The string as one flat run of characters. Template literals build a chain of fragments;
+ * converting to a number makes the engine flatten it in place, so a schedule of thousands
+ * of steps keeps compact strings and the fragments are freed at once.
+ */
+function flat(text: string): string {
+  void Number(text);
+  return text;
 }
 
 function fittingRange(fittings: readonly number[]): string {

@@ -20,6 +20,7 @@
 import { finding, hasErrors, type Finding } from '../findings';
 import { describeConductorEnd, formatConductorEnd, newConductorScan, scanConductorEnd, type ConductorEnd } from './conductor-id';
 import type { WiringKind, TerminalSchedule } from './terminal-schedule';
+import { NodeEnds } from './node-ends';
 import { UnionFind } from './union-find';
 
 export interface WiringNode {
@@ -90,8 +91,10 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
   const scan = newConductorScan();
   const unknownFittings = new Map<number, number[]>();
 
-  schedule.blocks.forEach((block, bi) => {
-    block.terminals.forEach((terminal, ti) => {
+  for (let bi = 0; bi < schedule.blocks.length; bi++) {
+    const block = schedule.blocks[bi]!;
+    for (let ti = 0; ti < block.terminals.length; ti++) {
+      const terminal = block.terminals[ti]!;
       const t = nextTerminal++;
       termBlock[t] = bi + 1;
       termNumber[t] = ti + 1;
@@ -144,8 +147,8 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
           repeats.set(e, at);
         }
       }
-    });
-  });
+    }
+  }
   const terminalCount = terminalTotal;
   const at = (t: number): string => `block ${termBlock[t]} terminal ${termNumber[t]}`;
   const subjectOf = (t: number): string => where(termBlock[t]!, termNumber[t]!);
@@ -259,16 +262,11 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
 
   const elementCount = 2 * n + 2;
   const nodeOf = new Int32Array(elementCount).fill(NONE);
-  const nodeEnds = new Map<number, number[]>();
   for (let e = 0; e < elementCount; e++) {
     const t = endTerminal[e]!;
-    if (t === NONE) continue;
-    const r = uf.find(t);
-    nodeOf[e] = r;
-    const xs = nodeEnds.get(r);
-    if (xs) xs.push(e);
-    else nodeEnds.set(r, [e]);
+    if (t !== NONE) nodeOf[e] = uf.find(t);
   }
+  const nodeEnds = NodeEnds.group(nodeOf, terminalCount);
 
   let nodeTerminals: Map<number, number[]> | null = null;
   const terminalsOf = (root: number): number[] => {
@@ -295,12 +293,12 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
   const nodes: WiringNode[] = [];
   if (wantNodes) {
     const firstTerminal = new Map<number, number>();
-    for (const [r, ends] of nodeEnds) {
+    nodeEnds.forEach((ends, r) => {
       let first = terminalCount;
       for (const e of ends) first = Math.min(first, endTerminal[e]!);
       firstTerminal.set(r, first);
-    }
-    const roots = [...nodeEnds.keys()].sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
+    });
+    const roots = nodeEnds.keys().sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
     const byLanding = (x: number, y: number) => endTerminal[x]! - endTerminal[y]! || x - y;
     for (const r of roots) {
       const ends = nodeEnds.get(r)!;
@@ -320,7 +318,7 @@ interface Analysis {
   n: number;
   terminalCount: number;
   nodeOf: Int32Array;
-  nodeEnds: Map<number, number[]>;
+  nodeEnds: NodeEnds;
   say: (end: ConductorEnd) => string;
   nodeAt: (root: number) => string;
   endAt: (e: number) => string;
@@ -373,11 +371,11 @@ function analyseSeries(a: Analysis): number[] | null {
   let anyBypass = false;
   for (let k = 1; k <= n && !anyBypass; k++) anyBypass = bypassed(a, k);
   if (anyBypass) {
-    nodeEnds = new Map();
-    for (const [root, ends] of a.nodeEnds) {
+    nodeEnds = new NodeEnds(a.terminalCount);
+    a.nodeEnds.forEach((ends, root) => {
       const kept = ends.filter((e) => e < 2 || !bypassed(a, e >> 1));
       if (kept.length > 0) nodeEnds.set(root, kept);
-    }
+    });
   }
 
   // Fittings sharing both nodes are in parallel.
@@ -423,7 +421,7 @@ function analyseSeries(a: Analysis): number[] | null {
   const markNode = (ends: readonly number[]) => {
     for (const e of ends) if (e >= 2) implicated.add(e >> 1);
   };
-  for (const [root, ends] of nodeEnds) {
+  nodeEnds.forEach((ends, root) => {
     if (ends.length === 1) {
       markNode(ends);
       const e = ends[0]!;
@@ -447,7 +445,7 @@ function analyseSeries(a: Analysis): number[] | null {
         ),
       );
     }
-  }
+  });
 
   // Walk the loop from driver + forwards and from driver - backwards.
   const visited = new Uint8Array(n + 1);
@@ -549,7 +547,10 @@ function analyseParallel(a: Analysis): void {
   }
 
   // Ends on nodes other than the supply's: a series joint, or an open end.
-  const offRail = [...nodeEnds].filter(([root]) => !rail(root));
+  const offRail: [number, number[]][] = [];
+  nodeEnds.forEach((ends, root) => {
+    if (!rail(root)) offRail.push([root, ends]);
+  });
   for (const [root, ends] of offRail) {
     const fittingsHere = [...new Set(ends.map((e) => e >> 1))].filter((k) => !bypassed(a, k));
     if (fittingsHere.length === 0) continue;
