@@ -88,7 +88,7 @@ describe('assigning fittings to blocks in order by capacity', () => {
       }),
       { numRuns: 200 },
     );
-  });
+  }, 30_000);
 });
 
 describe('terminal schedule follows the series rule', () => {
@@ -128,7 +128,7 @@ describe('terminal schedule follows the series rule', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 30_000);
 
   it('carries the return leg on core 2 of every link, back through every block to the driver', () => {
     const p = plan({ n: 10, blockType: blockType(4) });

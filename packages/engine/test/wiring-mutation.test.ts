@@ -159,7 +159,7 @@ describe('wiring check mutation test (generated constant-current schedules)', ()
     // electrically (e.g. a fitting's − moved to the far end of the link core it was joined to).
     expect(tally.reported).toBeGreaterThan(1000);
     expect(tally.equivalentAcrossTerminals).toBeGreaterThan(0);
-  });
+  }, 60_000);
 
   it('the equivalence is not trivial: an example of each kind', () => {
     const plan = scheduleOnly(
@@ -210,5 +210,5 @@ describe('wiring check mutation test (constant-voltage buses)', () => {
       }),
       { numRuns: 40, seed: 7 },
     );
-  });
+  }, 60_000);
 });
