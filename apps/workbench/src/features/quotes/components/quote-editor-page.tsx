@@ -11,6 +11,8 @@ import { useAutosave, type SaveState } from '../hooks/use-autosave';
 import { useEstimateEditor } from '../hooks/use-estimate-editor';
 import { EstimateGrid, previewContent, type CellDraft } from './estimate-grid';
 import { TotalsPanel } from './totals-panel';
+import { QuotePhotosPanel } from '../../photos/components/quote-photos-panel';
+import { QuoteSendControls } from '../../quote-sending/components/quote-send-controls';
 
 /** The engine's totals, or null when the document is one the engine refuses (shown as a notice). */
 function engineTotals(content: EstimateContent, revision: QuoteRevisionView): QuoteTotals | null {
@@ -119,6 +121,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
               <Badge tone={save.tone}>{save.text}</Badge>
             </span>
           ) : null}
+          <QuoteSendControls quoteId={quote.id} revision={revision} beforeSend={autosave.saveNow} />
           <label className="flex items-center gap-2 text-caption text-ink-muted">
             Revision
             <RevisionSwitcher detail={detail} current={revision.number} />
@@ -185,8 +188,9 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
 
       <div className="flex min-h-0 min-w-0 flex-1 gap-3">
         <EstimateGrid editor={editor} settings={settings} lineTotals={lineTotals} readOnly={readOnly} draft={draft} onDraftChange={setDraft} onNotice={onNotice} />
-        <div className="flex flex-col gap-3">
+        <div className="flex min-h-0 flex-col gap-3 overflow-y-auto">
           {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} />}
+          {user.role === 'installer' ? null : <QuotePhotosPanel quoteId={quote.id} />}
           <KeyHelp />
         </div>
       </div>
