@@ -14,6 +14,15 @@ import { quotesQueryOptions } from '../features/quotes/api/list-quotes';
 import { quoteQueryOptions } from '../features/quotes/api/get-quote';
 import { QuoteEditorPage } from '../features/quotes/components/quote-editor-page';
 import { QuotesHome, quoteFiltersFrom } from '../features/quotes/components/quotes-home';
+import { CataloguePage, productQueryFromSearch } from '../features/catalogue/components/catalogue-page';
+import { ImportWizard } from '../features/catalogue/components/import-wizard';
+import { productsQueryOptions } from '../features/catalogue/api/list-products';
+import { customerQueryOptions } from '../features/customers/api/get-customer';
+import { customersQueryOptions } from '../features/customers/api/list-customers';
+import { CustomerPage } from '../features/customers/components/customer-page';
+import { CustomersPage } from '../features/customers/components/customers-page';
+import { NewCustomerPage } from '../features/customers/components/new-customer-page';
+import { customerQueryFromSearch } from '../features/customers/customer-list-query';
 import { RouteError } from './route-error';
 import { requireRole, requireUser, signedOutOnly } from './route-guards';
 
@@ -63,6 +72,49 @@ export function createRouter(queryClient: QueryClient) {
           loader: async ({ request, params }) => {
             await requireRole(queryClient, request, rolesFor('/quotes'));
             if (params.quoteId) await queryClient.prefetchQuery(quoteQueryOptions(params.quoteId));
+            return null;
+          },
+        },
+        {
+          path: 'customers',
+          element: <CustomersPage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/customers'));
+            await queryClient.prefetchQuery(customersQueryOptions(customerQueryFromSearch(new URL(request.url).searchParams)));
+            return null;
+          },
+        },
+        {
+          path: 'customers/new',
+          element: <NewCustomerPage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/customers'));
+            return null;
+          },
+        },
+        {
+          path: 'customers/:customerId',
+          element: <CustomerPage />,
+          loader: async ({ request, params }) => {
+            await requireRole(queryClient, request, rolesFor('/customers'));
+            if (params.customerId) await queryClient.prefetchQuery(customerQueryOptions(params.customerId));
+            return null;
+          },
+        },
+        {
+          path: 'catalogue',
+          element: <CataloguePage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/catalogue'));
+            await queryClient.prefetchQuery(productsQueryOptions(productQueryFromSearch(new URL(request.url).searchParams)));
+            return null;
+          },
+        },
+        {
+          path: 'catalogue/import',
+          element: <ImportWizard />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/catalogue'));
             return null;
           },
         },

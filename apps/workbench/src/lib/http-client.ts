@@ -13,7 +13,7 @@ export const noContent: ResponseSchema<undefined> = {
 
 export type ApiRequest<T> = {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-  /** Sent as JSON. */
+  /** Sent as JSON; a FormData body is sent as multipart (the browser sets its boundary). */
   body?: unknown;
   schema: ResponseSchema<T>;
   signal?: AbortSignal;
@@ -33,7 +33,9 @@ const STATUS_TEXT: Record<number, string> = {
 export async function apiRequest<T>(path: string, request: ApiRequest<T>): Promise<T> {
   const headers: Record<string, string> = { Accept: `application/json, ${PROBLEM_CONTENT_TYPE}` };
   const init: RequestInit = { method: request.method ?? 'GET', headers, credentials: 'same-origin' };
-  if (request.body !== undefined) {
+  if (request.body instanceof FormData) {
+    init.body = request.body;
+  } else if (request.body !== undefined) {
     headers['Content-Type'] = 'application/json';
     init.body = JSON.stringify(request.body);
   }

@@ -4,6 +4,8 @@ import type { Role } from '@gloaming/contracts';
 export const SCREENS = [
   { path: '/overview', label: 'Overview', roles: ['owner'] },
   { path: '/quotes', label: 'Quotes', roles: ['owner', 'estimator'] },
+  { path: '/customers', label: 'Customers', roles: ['owner', 'estimator'] },
+  { path: '/catalogue', label: 'Catalogue', roles: ['owner', 'estimator'] },
   { path: '/jobs', label: 'Jobs', roles: ['owner', 'installer'] },
 ] as const satisfies ReadonlyArray<{ path: string; label: string; roles: ReadonlyArray<Role> }>;
 
