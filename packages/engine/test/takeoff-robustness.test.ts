@@ -10,6 +10,7 @@ import { takeoff, type TakeoffInput } from '../src/takeoff';
 
 const junk = fc.oneof(
   fc.constant(undefined),
+  fc.constantFrom(Number.MAX_SAFE_INTEGER, 1e300, -0, Number.NaN, Infinity),
   fc.constant(null),
   fc.integer(),
   fc.double(),
@@ -20,11 +21,11 @@ const junk = fc.oneof(
 );
 const maybe = <T>(arb: fc.Arbitrary<T>) => fc.oneof(arb, junk);
 
-const itemArb = maybe(fc.record({ productId: maybe(fc.constantFrom('fx', 'drv', 'cab', 'blk')), count: maybe(fc.integer({ min: -2, max: 5 })) }));
+const itemArb = maybe(fc.record({ productId: maybe(fc.constantFrom('fx', 'drv', 'cab', 'blk')), count: maybe(fc.oneof(fc.integer({ min: -2, max: 5 }), fc.integer({ min: 0, max: Number.MAX_SAFE_INTEGER }))) }));
 const runArb = maybe(
   fc.record({
     cableProductId: maybe(fc.constantFrom('cab', 'fx')),
-    length: maybe(fc.record({ value: maybe(fc.double({ min: -5, max: 50 })), unit: maybe(fc.constantFrom('m', 'ft', 'yd')) })),
+    length: maybe(fc.record({ value: maybe(fc.oneof(fc.double({ min: -5, max: 50 }), fc.double({ min: 0, max: 1e20 }))), unit: maybe(fc.constantFrom('m', 'ft', 'yd')) })),
     method: maybe(fc.constantFrom('surface-clipped', 'buried-trench', 'in-duct', 'stapled')),
   }),
 );
@@ -90,8 +91,8 @@ describe('malformed input never crashes', () => {
   });
 
   it('constant-voltage runs', () => {
-    const fittingArb = maybe(fc.record({ id: maybe(fc.string({ maxLength: 2 })), powerW: maybe(fc.double({ min: -1, max: 30 })), minVoltageV: maybe(fc.double({ min: -1, max: 12 })), nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)), drive: maybe(fc.constantFrom('constant-current', 'constant-voltage')) }));
-    const spanArb = maybe(fc.record({ length: maybe(fc.record({ value: maybe(fc.double({ min: -1, max: 30 })), unit: maybe(fc.constantFrom('m', 'ft')) })), fitting: fittingArb }));
+    const fittingArb = maybe(fc.record({ id: maybe(fc.string({ maxLength: 2 })), powerW: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))), minVoltageV: maybe(fc.double({ min: -1, max: 12 })), nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)), drive: maybe(fc.constantFrom('constant-current', 'constant-voltage')) }));
+    const spanArb = maybe(fc.record({ length: maybe(fc.record({ value: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))), unit: maybe(fc.constantFrom('m', 'ft')) })), fitting: fittingArb }));
     const cable = maybe(fc.record({ kind: maybe(fc.constantFrom('metric', 'awg')), areaMm2: maybe(fc.constantFrom(1.5, 2.5, 3)), conductorClass: maybe(fc.constantFrom(1, 5, 7)), coating: maybe(fc.constantFrom('plain', 'tinned')), gauge: maybe(fc.integer({ min: 8, max: 18 })), stranding: maybe(fc.constantFrom('solid', 'stranded')) }));
     const runArb2 = maybe(fc.record({ id: maybe(fc.string({ maxLength: 2 })), layout: maybe(fc.constantFrom('daisy-chain', 'home-run', 'hub', 'ring')), cable, spans: maybe(fc.array(spanArb, { maxLength: 4 })), feeder: maybe(fc.record({ length: maybe(fc.record({ value: fc.double({ min: 0, max: 10 }), unit: fc.constant('m') })), cable })) }));
     fc.assert(
@@ -105,6 +106,7 @@ describe('malformed input never crashes', () => {
           const r = checkCvRuns({ supply, runs, profile, cableOptions, firm, temperatureC: 20 } as unknown as CvInput);
           expect(Array.isArray(r.findings)).toBe(true);
           for (const run of r.runs) for (const f of run.fittings) expect(Number.isFinite(f.voltageV)).toBe(true);
+          expect(Number.isFinite(r.loadingPct) && Number.isFinite(r.outputW)).toBe(true);
         },
       ),
       { numRuns: 400 },

@@ -232,6 +232,12 @@ export function checkCvRuns(input: CvInput): CvResult {
     if (spanR === null || feederR === null) continue;
 
     const v = runVoltages(prepared.run, vs, spanR, feederR);
+    if (!Number.isFinite(v.lossW) || !v.voltagesV.every(Number.isFinite)) {
+      findings.push(
+        finding('cv-run-out-of-range', 'error', `Run ${prepared.id} gives figures too large to compute; check its lengths and fitting powers.`, { subject: runSubject }),
+      );
+      continue;
+    }
     const { ok, worstIndex } = judge(prepared.run, v, vs, dropLimitPct);
     const fittings: CvFittingResult[] = v.voltagesV.map((volts, k) => {
       const dropV = vs - volts;
@@ -319,7 +325,11 @@ export function checkCvRuns(input: CvInput): CvResult {
   }
 
   const outputW = vs * currentA;
-  const loadingPct = (outputW / supply.ratedPowerW) * 100;
+  let loadingPct = (outputW / supply.ratedPowerW) * 100;
+  if (!Number.isFinite(loadingPct) || !Number.isFinite(outputW)) {
+    findings.push(finding('cv-run-out-of-range', 'error', 'The supply loading is too large to compute; check the fitting powers and the supply rating.', { subject: 'supply' }));
+    loadingPct = Number.MAX_VALUE;
+  }
   if (loadingPct > 100 + EPS) {
     findings.push(
       finding('cv-supply-over-rating', 'error', `The fittings draw ${roundForDisplay(outputW, 1)} W from a ${supply.ratedPowerW} W supply (${roundForDisplay(loadingPct, 0)} %): it will shut down or fail.`, {

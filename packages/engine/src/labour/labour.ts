@@ -124,6 +124,7 @@ export function labour(input: LabourInput): LabourResult {
 
   const tallies = new Map<string, Tally>();
   const byCircuit = new Map<string, number>();
+  let byCircuitTotal = 0; // all minutes so far, kept within the safe-integer range
   const reported = new Set<string>();
   const once = (key: string, f: () => Finding) => {
     if (!reported.has(key)) {
@@ -141,7 +142,19 @@ export function labour(input: LabourInput): LabourResult {
     perUnit: number,
     quantityMilli: number,
   ) => {
-    const minutes = mulDiv(quantityMilli, perUnit, 1000, 'half-up');
+    let minutes: number;
+    try {
+      minutes = mulDiv(quantityMilli, perUnit, 1000, 'half-up');
+      if (!Number.isSafeInteger(byCircuitTotal + minutes)) throw new Error('overflow');
+    } catch {
+      once(`too-large:${circuitId}`, () =>
+        finding('labour-out-of-range', 'error', `The labour on circuit "${circuitId}" is too large to add up exactly; check the counts, lengths and the labour table.`, {
+          subject: `circuit:${circuitId}`,
+        }),
+      );
+      return;
+    }
+    byCircuitTotal += minutes;
     const id = `${task}|${key}`;
     let t = tallies.get(id);
     if (!t) {
@@ -255,8 +268,17 @@ export function labour(input: LabourInput): LabourResult {
   const ordered = [...tallies.values()].sort((a, b) => taskOrder.indexOf(a.task) - taskOrder.indexOf(b.task));
   const total = ordered.reduce((s, t) => s + t.minutesMilli, 0);
   // minutes (thousandths) x rate per hour / 60,000
-  const priceMinor = sellRate === null ? 0 : mulDiv(total, sellRate, 60_000, 'half-up');
-  const costMinor = costRate === null ? null : mulDiv(total, costRate, 60_000, 'half-up');
+  const price = (rate: number | null): number | null => {
+    if (rate === null) return null;
+    try {
+      return mulDiv(total, rate, 60_000, 'half-up');
+    } catch {
+      findings.push(finding('labour-out-of-range', 'error', 'The labour price is too large to hold exactly; check the hourly rate and the minutes.', { subject: 'labour-table' }));
+      return null;
+    }
+  };
+  const priceMinor = price(sellRate) ?? 0;
+  const costMinor = price(costRate);
   const weights = ordered.map((t) => t.minutesMilli);
   const canShare = total > 0;
   const prices = canShare ? allocateMinor(priceMinor, weights) : weights.map(() => 0);

@@ -163,6 +163,14 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
       );
     }
     let t = tallies.get(productId);
+    if (!Number.isSafeInteger(quantityMilli) || !Number.isSafeInteger((t?.quantityMilli ?? 0) + quantityMilli)) {
+      findings.push(
+        finding('quantity-out-of-range', 'error', `Circuit "${circuitId}": the quantity of "${product.name}" is too large to count exactly; check the count or length.`, {
+          subject,
+        }),
+      );
+      return false;
+    }
     if (!t) {
       t = { product, quantityMilli: 0, sources: [], runCount: 0, order: order++ };
       tallies.set(productId, t);
@@ -272,8 +280,21 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
     let cable: CableQuantity | null = null;
     if (p.category === 'cable') {
       const cut = p.cutLengthM === undefined ? firmCut : cutLength(p.cutLengthM, `product:${p.id}`, findings) ?? firmCut;
-      const withSlack = mulDiv(t.quantityMilli, 10_000 + slackBp, 10_000, 'up');
-      const bought = divRound(withSlack, cut, 'up') * cut;
+      let withSlack = t.quantityMilli;
+      let bought = t.quantityMilli;
+      try {
+        withSlack = mulDiv(t.quantityMilli, 10_000 + slackBp, 10_000, 'up');
+        bought = divRound(withSlack, cut, 'up') * cut;
+        if (!Number.isSafeInteger(bought)) throw new Error('overflow');
+      } catch {
+        findings.push(
+          finding('quantity-out-of-range', 'error', `The cable for "${p.name}" is too long to add slack and round exactly; it is listed as measured.`, {
+            subject: `product:${p.id}`,
+          }),
+        );
+        withSlack = t.quantityMilli;
+        bought = t.quantityMilli;
+      }
       cable = {
         runMilli: t.quantityMilli,
         slackMilli: withSlack - t.quantityMilli,
