@@ -301,3 +301,31 @@ describe('from a series string as the string check takes it', () => {
     expect(plan.steps).toContainEqual({ block: 1, text: 'Block 1 terminal 1: land driver lead + and fitting 1 (Oak uplight) + (driver + to the first fitting).' });
   });
 });
+
+describe('any input', () => {
+  it('never crashes; a plan without errors always passes the wiring check', () => {
+    const input = fc.record({
+      n: fc.integer({ min: 0, max: 12 }),
+      terminals: fc.integer({ min: -1, max: 8 }),
+      entries: fc.integer({ min: 0, max: 8 }),
+      cpt: fc.integer({ min: 0, max: 3 }),
+      assignment: fc.option(fc.array(fc.array(fc.integer({ min: 0, max: 13 }).map((k) => `F${k}`), { maxLength: 5 }), { maxLength: 5 }), {
+        nil: undefined,
+      }),
+    });
+    fc.assert(
+      fc.property(input, ({ n, terminals, entries, cpt, assignment }) => {
+        const p = planConnectorBlocks({
+          string: { fittings: fittings(n, (i) => ({ id: `F${i + 1}` })), linkCable: { lengthM: 2 } },
+          blockType: blockType(terminals, entries, { conductorsPerTerminal: cpt }),
+          ...(assignment ? { assignment } : {}),
+        });
+        if (errorCodes(p).length === 0) {
+          expect(p.blocks.length).toBeGreaterThan(0);
+          expect(checkWiring(p).ok).toBe(true);
+        } else expect(p.blocks).toEqual([]);
+      }),
+      { numRuns: 1000, seed: 3 },
+    );
+  }, 30_000);
+});

@@ -7,6 +7,7 @@
  * - constant-voltage fittings in parallel, across the supply (common practice);
  * - an LED is a diode: reversed, it does not light (definition of forward bias).
  */
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkWiring, electricalNodes, parseConductorEnd, type TerminalSchedule } from '../src/index';
 
@@ -251,4 +252,39 @@ describe('constant-voltage check', () => {
   ])('%s', (_n, build, expected) => {
     expect(errorCodes(build())).toEqual(expected);
   });
+});
+
+describe('any schedule a person might type', () => {
+  it('never crashes, and every error names a stable kebab-case code and a place or thing', () => {
+    const conductor = fc.oneof(
+      fc.constantFrom('driver+', 'driver-', 'Driver −', 'lamp', '', 'fitting:0+', 'link:1/core:1/end:C'),
+      fc.tuple(fc.integer({ min: 1, max: 6 }), fc.constantFrom('+', '-')).map(([k, p]) => `fitting:${k}${p}`),
+      fc.tuple(fc.integer({ min: 1, max: 2 }), fc.integer({ min: 1, max: 3 }), fc.constantFrom('A', 'B')).map(
+        ([l, c, e]) => `link:${l}/core:${c}/end:${e}`,
+      ),
+    );
+    const schedule = fc.record({
+      kind: fc.constantFrom('constant-current' as const, 'constant-voltage' as const),
+      fittingCount: fc.integer({ min: 0, max: 5 }),
+      blocks: fc.array(
+        fc.record({
+          conductorsPerTerminal: fc.option(fc.integer({ min: 1, max: 3 }), { nil: undefined }),
+          terminals: fc.array(fc.record({ conductors: fc.array(conductor, { maxLength: 4 }) }), { maxLength: 6 }),
+        }),
+        { maxLength: 3 },
+      ),
+    });
+    fc.assert(
+      fc.property(schedule, (s) => {
+        const r = checkWiring(s);
+        expect(r.ok).toBe(!r.findings.some((f) => f.severity === 'error'));
+        for (const f of r.findings) {
+          expect(f.code).toMatch(/^[a-z]+(-[a-z]+)*$/);
+          expect(f.message.length).toBeGreaterThan(10);
+        }
+        electricalNodes(s);
+      }),
+      { numRuns: 2000, seed: 42 },
+    );
+  }, 30_000);
 });
