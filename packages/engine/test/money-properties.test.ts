@@ -171,10 +171,11 @@ describe('money properties', () => {
           expect(parts.reduce((s, p) => s + BigInt(p), 0n)).toBe(BigInt(amount));
           const total = weights.reduce((s, w) => s + w, 0);
           // same as a plain largest-remainder with a full sort (ties to the earlier part)
-          const exacts = weights.map((w) => new D(Math.abs(amount)).mul(w).div(total));
-          const naive = exacts.map((x) => x.floor().toNumber());
+          // remainders as exact decimal integers (|amount| x w mod total), so ties compare exactly
+          const rems = weights.map((w) => new D(Math.abs(amount)).mul(w).mod(total));
+          const naive = weights.map((w, i) => new D(Math.abs(amount)).mul(w).sub(rems[i]!).div(total).toNumber());
           let left = Math.abs(amount) - naive.reduce((s, x) => s + x, 0);
-          const order = exacts.map((x, i) => i).sort((x, y) => exacts[y]!.mod(1).cmp(exacts[x]!.mod(1)) || x - y);
+          const order = rems.map((x, i) => i).sort((x, y) => rems[y]!.cmp(rems[x]!) || x - y);
           for (const i of order) if (left-- > 0) naive[i]! += 1;
           expect(parts).toEqual(naive.map((x) => (amount < 0 ? -x + 0 : x)));
           parts.forEach((p, i) => {
@@ -187,6 +188,11 @@ describe('money properties', () => {
       ),
       { numRuns: 500 },
     );
+  });
+
+  it('breaks equal remainders toward the earlier part, even past 2^53 (found by the property above)', () => {
+    // 5023404406777070 x [1, 3, 2, 8] / 14: remainders 6, 4, 12, 6; two pennies left -> parts 3 and 1
+    expect(allocateMinor(5023404406777070, [1, 3, 2, 8])).toEqual([358814600484077, 1076443801452229, 717629200968153, 2870516803872611]);
   });
 
   it('mulDiv matches decimal.js for every rounding mode, past 2^53 too', () => {
