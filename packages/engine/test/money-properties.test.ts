@@ -86,10 +86,11 @@ function oracle(q: QuoteInput) {
   if (q.discount?.kind === 'percent') qd = round(pre.mul(q.discount.bp).div(10_000), 'half-up');
   if (q.discount?.kind === 'fixed') qd = Math.min(pre.toNumber(), q.discount.amountMinor);
   if (qd > 0) {
-    const exact = nets.map((x) => new D(qd).mul(x).div(pre));
-    const floors = exact.map((x) => x.floor());
+    // shares by largest remainder; remainders as exact integers (qd x net mod total)
+    const rems = nets.map((x) => new D(qd).mul(x).mod(pre));
+    const floors = nets.map((x, i) => new D(qd).mul(x).sub(rems[i]!).div(pre));
     let left = qd - floors.reduce((s, x) => s + x.toNumber(), 0);
-    const order = exact.map((x, i) => i).sort((a, b) => exact[b]!.sub(floors[b]!).cmp(exact[a]!.sub(floors[a]!)) || a - b);
+    const order = rems.map((x, i) => i).sort((a, b) => rems[b]!.cmp(rems[a]!) || a - b);
     for (const i of order) {
       if (left === 0) break;
       floors[i] = floors[i]!.add(1);
