@@ -61,13 +61,14 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
     if (scan.kind === 'link') return `link cable ${scan.link} core ${scan.core} (end ${scan.endB ? 'B' : 'A'})`;
     return `${nameOf(scan.fitting)} ${sign}`;
   };
-  /** Step text for a joint between two fittings (the common case) in one go; null otherwise. */
-  const fittingJoint = (head: string, a: string, b: string, note: string): string | null => {
+  /** Step text for a joint between two fittings (the common case) in one template; null otherwise. */
+  const fittingJoint = (block: number, terminal: number, a: string, b: string): string | null => {
     if (!scanConductorEnd(a, scan) || scan.kind !== 'fitting') return null;
     const ka = scan.fitting;
     const sa = scan.minus ? '-' : '+';
     if (!scanConductorEnd(b, scan) || scan.kind !== 'fitting') return null;
-    return `${head}${nameOf(ka)} ${sa} and ${nameOf(scan.fitting)} ${scan.minus ? '-' : '+'}${note}.`;
+    const sb = scan.minus ? '-' : '+';
+    return `Block ${block} terminal ${terminal}: land ${nameOf(ka)} ${sa} and ${nameOf(scan.fitting)} ${sb}.`;
   };
   for (const block of plan.blocks) {
     const e = block.entries;
@@ -92,11 +93,9 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
     for (let i = 0; i < block.terminals.length; i++) {
       const t = block.terminals[i]!;
       const c = t.conductors;
-      const head = `Block ${block.number} terminal ${i + 1}: land `;
-      const note = t.note ? ` (${t.note})` : '';
-      const text =
-        (c.length === 2 ? fittingJoint(head, c[0]!, c[1]!, note) : null) ??
-        `${head}${c.length === 2 ? `${describe(c[0]!)} and ${describe(c[1]!)}` : list(c.map(describe))}${note}.`;
+      const joint = c.length === 2 && !t.note ? fittingJoint(block.number, i + 1, c[0]!, c[1]!) : null;
+      const lands = joint ? '' : c.length === 2 ? `${describe(c[0]!)} and ${describe(c[1]!)}` : list(c.map(describe));
+      const text = joint ?? `Block ${block.number} terminal ${i + 1}: land ${lands}${t.note ? ` (${t.note})` : ''}.`;
       steps.push({ block: block.number, text: flat(text) });
     }
     if (block.spareTerminals > 0) {
