@@ -140,7 +140,7 @@ export function CataloguePage() {
             onClick={() => setEditing('new')}
             className="inline-flex h-11 items-center rounded-control bg-accent px-5 font-semibold text-accent-ink shadow-control hover:bg-lamp-300"
           >
-            Add {PRODUCT_KIND_LABELS[kind].toLowerCase()} item
+            Add to {PRODUCT_KIND_LABELS[kind]}
           </button>
         </div>
       </div>
@@ -169,7 +169,7 @@ export function CataloguePage() {
       </div>
       <div id="kind-panel" role="tabpanel" aria-labelledby={`kind-tab-${kind}`} className="grid gap-4">
         {editing ? (
-          <Card title={editing === 'new' ? `New ${PRODUCT_KIND_LABELS[kind].toLowerCase()} item` : `Edit ${editing.name}`}>
+          <Card title={editing === 'new' ? `New in ${PRODUCT_KIND_LABELS[kind]}` : `Edit ${editing.name}`}>
             <ProductForm key={editing === 'new' ? `new-${kind}` : `${editing.id}-${editing.version}`} kind={editing === 'new' ? kind : editing.kind} product={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
           </Card>
         ) : null}
@@ -197,7 +197,7 @@ export function CataloguePage() {
           total={total}
           busy={products.isFetching}
           onRowOpen={(row) => setEditing(row)}
-          empty={products.isPending ? 'Loading…' : query.search ? `Nothing here matches “${query.search}”.` : `No ${PRODUCT_KIND_LABELS[kind].toLowerCase()} yet. Add one, or import a supplier’s price list.`}
+          empty={products.isPending ? 'Loading…' : query.search ? `Nothing here matches “${query.search}”.` : `Nothing in ${PRODUCT_KIND_LABELS[kind]} yet. Add an item, or import a supplier’s price list.`}
         />
       </div>
     </>

@@ -83,7 +83,7 @@ export function ProductForm({ kind, product, onDone }: { kind: ProductKind; prod
   const ip = () => <TextField label="IP code" placeholder="IP67" spellCheck={false} {...register('spec.ipCode' as never)} error={error('spec.ipCode')} />;
 
   return (
-    <form noValidate onSubmit={submit} aria-label={product ? `Edit ${product.name}` : `New ${PRODUCT_KIND_LABELS[kind].toLowerCase()} item`} className="grid gap-5">
+    <form noValidate onSubmit={submit} aria-label={product ? `Edit ${product.name}` : `New in ${PRODUCT_KIND_LABELS[kind]}`} className="grid gap-5">
       <FormMessage tone="error" title={message?.title}>
         {message?.detail}
       </FormMessage>
