@@ -28,7 +28,7 @@ const s = StyleSheet.create({
   detailRow: { flexDirection: 'row', justifyContent: 'space-between', marginBottom: 1.5 },
   detailKey: { color: muted },
   intro: { marginBottom: 14, fontSize: 9.5, lineHeight: 1.4 },
-  para: { lineHeight: 1.4 },
+  para: { fontSize: 9, lineHeight: 1.4 },
   section: { marginBottom: 12 },
   sectionHead: {
     flexDirection: 'row',

@@ -43,10 +43,17 @@ export function QuoteSendControls({
   const [status, setStatus] = useState('');
   const sent = revision.state !== 'draft';
   const activeLinks = sending.data?.links.filter((l) => l.active).length ?? 0;
+  useEffect(() => {
+    if (!status) return;
+    const t = window.setTimeout(() => setStatus(''), 8000);
+    return () => window.clearTimeout(t);
+  }, [status]);
 
   return (
-    <div className="flex items-center gap-2">
-      {sent && sending.data ? <span className="text-micro text-ink-muted">{sentSummary(sending.data)}</span> : null}
+    <div className="flex items-center gap-2 whitespace-nowrap">
+      {sent && sending.data ? (
+        <span className="max-w-56 text-micro whitespace-normal text-ink-muted">{sentSummary(sending.data)}</span>
+      ) : null}
       <a
         href={quotePdfUrl(quoteId, revision.id)}
         download
@@ -80,7 +87,7 @@ export function QuoteSendControls({
           </Button>
         </>
       ) : null}
-      <span role="status" aria-live="polite" className="text-micro text-leaf-700">
+      <span role="status" aria-live="polite" className="max-w-48 truncate text-micro text-leaf-700" title={status}>
         {status}
       </span>
       {revoke.isError ? (
