@@ -9,7 +9,14 @@ const flex = (areaMm2: number): CableSpec => ({ kind: 'metric', areaMm2, conduct
 const R15 = 13.3 / 1000;
 const R25 = 7.98 / 1000;
 
-const supply: CvSupply = { id: 'psu', name: 'Hollow 12 V 60 W', nominalVoltageV: 12, ratedPowerW: 60, ipCode: 'IP67', location: 'driver-outdoors' };
+const supply: CvSupply = {
+  id: 'psu',
+  name: 'Hollow 12 V 60 W',
+  nominalVoltageV: 12,
+  ratedPowerW: 60,
+  ipCode: 'IP67',
+  location: 'driver-outdoors',
+};
 // 12 V fittings want about 10.5-11.5 V at the lamp (common practice); this invented one states 10.5 V.
 const deck = (id: string, powerW = 6, over: Partial<CvFitting> = {}): CvFitting => ({ id, powerW, minVoltageV: 10.5, ...over });
 const options: CvCableOption[] = [
@@ -24,7 +31,13 @@ const chain = (spec: CableSpec = flex(1.5)): CvRun => ({
   cable: spec,
   spans: ['a', 'b', 'c', 'd'].map((id) => ({ length: metres(5), fitting: deck(id) })),
 });
-const base = (over: Partial<CvInput> = {}): CvInput => ({ supply, runs: [chain()], profile: 'uk-iec', temperatureC: 20, ...over });
+const base = (over: Partial<CvInput> = {}): CvInput => ({
+  supply,
+  runs: [chain()],
+  profile: 'uk-iec',
+  temperatureC: 20,
+  ...over,
+});
 
 describe('daisy chain', () => {
   // Daisy-chain formula [derived, REFERENCES "Voltage drop"]: segment j carries the loads beyond it;
@@ -81,8 +94,10 @@ describe('daisy chain', () => {
     expect(hot.runs[0]!.fittings[3]!.dropV).toBeCloseTo(0.665 * 1.1965, 9);
   });
 
-  it("flags a fitting below its own minimum voltage", () => {
-    const strict = checkCvRuns(base({ runs: [{ ...chain(), spans: chain().spans.map((s) => ({ ...s, fitting: { ...s.fitting, minVoltageV: 11.5 } })) }] }));
+  it('flags a fitting below its own minimum voltage', () => {
+    const strict = checkCvRuns(
+      base({ runs: [{ ...chain(), spans: chain().spans.map((s) => ({ ...s, fitting: { ...s.fitting, minVoltageV: 11.5 } })) }] }),
+    );
     const below = strict.findings.filter((f) => f.code === 'cv-below-fitting-minimum');
     expect(below.map((f) => f.subject)).toEqual(['run:deck/fitting:c', 'run:deck/fitting:d']);
     expect(below[0]!.severity).toBe('error');
@@ -134,7 +149,12 @@ describe('findings', () => {
   const codes = (input: CvInput) => checkCvRuns(input).findings.map((f) => f.code);
 
   it('supply loading over the 80 % limit (common practice) warns; over its rating is an error', () => {
-    const run = (n: number, w: number): CvRun => ({ id: 'r', layout: 'home-run', cable: flex(4), spans: Array.from({ length: n }, (_, k) => ({ length: metres(1), fitting: deck(`f${k}`, w) })) });
+    const run = (n: number, w: number): CvRun => ({
+      id: 'r',
+      layout: 'home-run',
+      cable: flex(4),
+      spans: Array.from({ length: n }, (_, k) => ({ length: metres(1), fitting: deck(`f${k}`, w) })),
+    });
     expect(codes(base({ runs: [run(9, 6)] }))).toContain('cv-supply-overloaded'); // 54 W of 60 W = 90 %
     expect(codes(base({ runs: [run(8, 6)] }))).not.toContain('cv-supply-overloaded'); // 48 W = 80 %
     const over = codes(base({ runs: [run(7, 10)] })); // 70 W
@@ -143,15 +163,20 @@ describe('findings', () => {
   });
 
   it('a constant-current fitting on a constant-voltage supply is destroyed (common practice)', () => {
-    const r = checkCvRuns(base({ runs: [{ ...chain(), spans: [{ length: metres(2), fitting: deck('cc', 3, { drive: 'constant-current' }) }] }] }));
-    expect(r.findings.find((f) => f.code === 'cc-fitting-on-cv-supply')).toMatchObject({ severity: 'error', subject: 'run:deck/fitting:cc' });
+    const r = checkCvRuns(
+      base({ runs: [{ ...chain(), spans: [{ length: metres(2), fitting: deck('cc', 3, { drive: 'constant-current' }) }] }] }),
+    );
+    expect(r.findings.find((f) => f.code === 'cc-fitting-on-cv-supply')).toMatchObject({
+      severity: 'error',
+      subject: 'run:deck/fitting:cc',
+    });
   });
 
   it('reports a constant-current driver used as the supply, and a 24 V fitting on a 12 V supply', () => {
     expect(codes(base({ supply: { ...supply, output: 'constant-current' } }))).toContain('cv-supply-not-constant-voltage');
-    expect(codes(base({ runs: [{ ...chain(), spans: [{ length: metres(2), fitting: deck('x', 5, { nominalVoltageV: 24 }) }] }] }))).toContain(
-      'cv-fitting-voltage-mismatch',
-    );
+    expect(
+      codes(base({ runs: [{ ...chain(), spans: [{ length: metres(2), fitting: deck('x', 5, { nominalVoltageV: 24 }) }] }] })),
+    ).toContain('cv-fitting-voltage-mismatch');
   });
 
   it('checks the supply voltage against the profile (IEC 60598-1 8.2.3: 30 V DC outdoors)', () => {
@@ -162,7 +187,10 @@ describe('findings', () => {
   it('checks IP codes against locations', () => {
     expect(codes(base({ supply: { ...supply, ipCode: 'IP44' } }))).toContain('driver-ip-short-of-location');
     // IEC 60529: IPX7 does not imply jet protection (5/6) unless dual-coded; walk-over needs IP67 (common practice)
-    const spans = ['a', 'b'].map((id) => ({ length: metres(1), fitting: deck(id, 1, { ipCode: 'IP65', location: 'in-ground-walk-over' as const }) }));
+    const spans = ['a', 'b'].map((id) => ({
+      length: metres(1),
+      fitting: deck(id, 1, { ipCode: 'IP65', location: 'in-ground-walk-over' as const }),
+    }));
     const r = checkCvRuns(base({ runs: [{ ...chain(), spans }] }));
     const short = r.findings.filter((f) => f.code === 'fitting-ip-short-of-location');
     expect(short.map((f) => f.subject)).toEqual(['run:deck/fitting:a', 'run:deck/fitting:b']);
@@ -179,9 +207,13 @@ describe('findings', () => {
         ],
       }),
     );
-    expect(bad.findings.map((f) => f.code)).toEqual(expect.arrayContaining(['length-invalid', 'cable-size-not-in-table', 'cv-fitting-invalid']));
+    expect(bad.findings.map((f) => f.code)).toEqual(
+      expect.arrayContaining(['length-invalid', 'cable-size-not-in-table', 'cv-fitting-invalid']),
+    );
     expect(bad.runs).toEqual([]);
-    expect(checkCvRuns(base({ supply: { ...supply, ratedPowerW: 0 } })).findings.map((f) => f.code)).toContain('cv-supply-invalid');
+    expect(checkCvRuns(base({ supply: { ...supply, ratedPowerW: 0 } })).findings.map((f) => f.code)).toContain(
+      'cv-supply-invalid',
+    );
   });
 
   it('says when no stocked cable is enough', () => {
@@ -200,8 +232,19 @@ describe('properties', () => {
       supply: { ...supply, ratedPowerW: 10_000 },
       runs: [
         layout === 'hub'
-          ? { id: 'r', layout, cable: flex(1.5), feeder: { length: metres(spans[0]!.m) }, spans: spans.map((s, k) => ({ length: metres(s.m), fitting: deck(`f${k}`, s.w) })) }
-          : { id: 'r', layout, cable: flex(1.5), spans: spans.map((s, k) => ({ length: metres(s.m), fitting: deck(`f${k}`, s.w) })) },
+          ? {
+              id: 'r',
+              layout,
+              cable: flex(1.5),
+              feeder: { length: metres(spans[0]!.m) },
+              spans: spans.map((s, k) => ({ length: metres(s.m), fitting: deck(`f${k}`, s.w) })),
+            }
+          : {
+              id: 'r',
+              layout,
+              cable: flex(1.5),
+              spans: spans.map((s, k) => ({ length: metres(s.m), fitting: deck(`f${k}`, s.w) })),
+            },
       ],
       cableOptions: options,
     });
@@ -263,7 +306,16 @@ describe('properties', () => {
   });
 
   it('runVoltages is linear in resistance: half the resistance, half the drop', () => {
-    const prepared = { id: 'r', layout: 'daisy-chain' as const, lengthsM: [5, 5, 5], currentsA: [1, 1, 1], minVoltagesV: [null, null, null], fittingIds: ['a', 'b', 'c'], feederLengthM: 0, totalCurrentA: 3 };
+    const prepared = {
+      id: 'r',
+      layout: 'daisy-chain' as const,
+      lengthsM: [5, 5, 5],
+      currentsA: [1, 1, 1],
+      minVoltagesV: [null, null, null],
+      fittingIds: ['a', 'b', 'c'],
+      feederLengthM: 0,
+      totalCurrentA: 3,
+    };
     const a = runVoltages(prepared, 12, 0.02);
     const b = runVoltages(prepared, 12, 0.01);
     a.voltagesV.forEach((v, k) => expect(12 - b.voltagesV[k]!).toBeCloseTo((12 - v) / 2, 12));

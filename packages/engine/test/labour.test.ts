@@ -29,7 +29,10 @@ const circuit: TakeoffCircuit = {
   id: 'front-bed',
   kind: 'constant-current',
   powerProductId: 'drv',
-  fittings: [{ productId: 'fx-spike', count: 5 }, { productId: 'fx-inground', count: 2 }],
+  fittings: [
+    { productId: 'fx-spike', count: 5 },
+    { productId: 'fx-inground', count: 2 },
+  ],
   cableRuns: [
     { cableProductId: 'cab', length: metres(10), method: 'buried-trench' },
     { cableProductId: 'cab', length: metres(4.2), method: 'surface-clipped' },
@@ -94,10 +97,17 @@ describe('labour', () => {
   it('line shares always add up to the price (property)', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.record({ spikes: fc.integer({ min: 0, max: 40 }), mm: fc.integer({ min: 0, max: 500_000 }), blocks: fc.integer({ min: 0, max: 20 }) }), {
-          minLength: 1,
-          maxLength: 8,
-        }),
+        fc.array(
+          fc.record({
+            spikes: fc.integer({ min: 0, max: 40 }),
+            mm: fc.integer({ min: 0, max: 500_000 }),
+            blocks: fc.integer({ min: 0, max: 20 }),
+          }),
+          {
+            minLength: 1,
+            maxLength: 8,
+          },
+        ),
         fc.integer({ min: 0, max: 20_000 }),
         (cs, rate) => {
           const circuits: TakeoffCircuit[] = cs.map((x, i) => ({

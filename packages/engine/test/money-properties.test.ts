@@ -70,7 +70,8 @@ function oracle(q: QuoteInput) {
   const nets: Decimal[] = [];
   const rates: number[] = [];
   const firstChosen = new Map<string, string>();
-  for (const l of q.lines) if (l.alternativeGroup && l.selected && !firstChosen.has(l.alternativeGroup)) firstChosen.set(l.alternativeGroup, l.id);
+  for (const l of q.lines)
+    if (l.alternativeGroup && l.selected && !firstChosen.has(l.alternativeGroup)) firstChosen.set(l.alternativeGroup, l.id);
   for (const l of q.lines) {
     if (l.optional && !l.selected) continue;
     if (l.alternativeGroup && firstChosen.get(l.alternativeGroup) !== l.id) continue;
@@ -156,7 +157,9 @@ describe('money properties', () => {
       fc.property(quoteArb, (q) => {
         const t = computeQuoteTotals(q);
         const o = oracle(q);
-        expect({ net: t.netMinor, vatMinor: t.vatMinor, total: t.totalMinor, deposit: t.deposit?.depositMinor ?? null }).toEqual(o);
+        expect({ net: t.netMinor, vatMinor: t.vatMinor, total: t.totalMinor, deposit: t.deposit?.depositMinor ?? null }).toEqual(
+          o,
+        );
       }),
       { numRuns: 400 },
     );
@@ -166,7 +169,12 @@ describe('money properties', () => {
     fc.assert(
       fc.property(
         fc.integer({ min: -Number.MAX_SAFE_INTEGER, max: Number.MAX_SAFE_INTEGER }),
-        fc.array(fc.oneof(fc.integer({ min: 0, max: 1_000_000_000 }), fc.integer({ min: 0, max: 3 })), { minLength: 1, maxLength: 40 }).filter((w) => w.some((x) => x > 0)),
+        fc
+          .array(fc.oneof(fc.integer({ min: 0, max: 1_000_000_000 }), fc.integer({ min: 0, max: 3 })), {
+            minLength: 1,
+            maxLength: 40,
+          })
+          .filter((w) => w.some((x) => x > 0)),
         (amount, weights) => {
           const parts = allocateMinor(amount, weights);
           expect(parts.reduce((s, p) => s + BigInt(p), 0n)).toBe(BigInt(amount));
@@ -193,29 +201,51 @@ describe('money properties', () => {
 
   it('breaks equal remainders toward the earlier part, even past 2^53 (found by the property above)', () => {
     // 5023404406777070 x [1, 3, 2, 8] / 14: remainders 6, 4, 12, 6; two pennies left -> parts 3 and 1
-    expect(allocateMinor(5023404406777070, [1, 3, 2, 8])).toEqual([358814600484077, 1076443801452229, 717629200968153, 2870516803872611]);
+    expect(allocateMinor(5023404406777070, [1, 3, 2, 8])).toEqual([
+      358814600484077, 1076443801452229, 717629200968153, 2870516803872611,
+    ]);
   });
 
   it('mulDiv matches decimal.js for every rounding mode, past 2^53 too', () => {
     const big = fc.integer({ min: -Number.MAX_SAFE_INTEGER, max: Number.MAX_SAFE_INTEGER });
     fc.assert(
-      fc.property(big, fc.integer({ min: -100_000, max: 100_000 }), fc.integer({ min: 1, max: 1_000_000_000 }), fc.constantFrom<IntegerRounding>('half-up', 'half-even', 'down', 'up'), (a, b, d, mode) => {
-        const exact = round(new D(a).mul(b).div(d), mode);
-        if (!Number.isSafeInteger(exact)) {
-          expect(() => mulDiv(a, b, d, mode)).toThrow(/too large/);
-        } else {
-          expect(mulDiv(a, b, d, mode)).toBe(exact);
-        }
-      }),
+      fc.property(
+        big,
+        fc.integer({ min: -100_000, max: 100_000 }),
+        fc.integer({ min: 1, max: 1_000_000_000 }),
+        fc.constantFrom<IntegerRounding>('half-up', 'half-even', 'down', 'up'),
+        (a, b, d, mode) => {
+          const exact = round(new D(a).mul(b).div(d), mode);
+          if (!Number.isSafeInteger(exact)) {
+            expect(() => mulDiv(a, b, d, mode)).toThrow(/too large/);
+          } else {
+            expect(mulDiv(a, b, d, mode)).toBe(exact);
+          }
+        },
+      ),
       { numRuns: 2000 },
     );
   });
 });
 
 describe('malformed quotes give a clear MoneyInputError, never a crash', () => {
-  const junk = fc.oneof(fc.constant(undefined), fc.constant(null), fc.integer(), fc.double(), fc.string({ maxLength: 4 }), fc.boolean(), fc.dictionary(fc.string({ maxLength: 3 }), fc.integer(), { maxKeys: 2 }));
+  const junk = fc.oneof(
+    fc.constant(undefined),
+    fc.constant(null),
+    fc.integer(),
+    fc.double(),
+    fc.string({ maxLength: 4 }),
+    fc.boolean(),
+    fc.dictionary(fc.string({ maxLength: 3 }), fc.integer(), { maxKeys: 2 }),
+  );
   const maybe = <T>(a: fc.Arbitrary<T>) => fc.oneof(a, junk);
-  const disc = maybe(fc.record({ kind: maybe(fc.constantFrom('percent', 'fixed', 'other')), bp: maybe(fc.integer({ min: -5, max: 20_000 })), amountMinor: maybe(fc.integer({ min: -5, max: 500 })) }));
+  const disc = maybe(
+    fc.record({
+      kind: maybe(fc.constantFrom('percent', 'fixed', 'other')),
+      bp: maybe(fc.integer({ min: -5, max: 20_000 })),
+      amountMinor: maybe(fc.integer({ min: -5, max: 500 })),
+    }),
+  );
   const lineArb2 = maybe(
     fc.record({
       id: maybe(fc.constantFrom('a', 'b', 'c')),
@@ -231,15 +261,21 @@ describe('malformed quotes give a clear MoneyInputError, never a crash', () => {
   );
   it('throws only MoneyInputError', () => {
     fc.assert(
-      fc.property(maybe(fc.array(lineArb2, { maxLength: 4 })), maybe(fc.constantFrom(...VAT_ROUNDINGS, 'nearest')), disc, disc, (lines, vatRounding, discount, deposit) => {
-        try {
-          const t = computeQuoteTotals({ lines, vatRounding, discount, deposit } as unknown as QuoteInput);
-          expect(t.totalMinor).toBe(t.netMinor + t.vatMinor);
-        } catch (e) {
-          expect(e).toBeInstanceOf(MoneyInputError);
-          expect((e as MoneyInputError).message.length).toBeGreaterThan(10);
-        }
-      }),
+      fc.property(
+        maybe(fc.array(lineArb2, { maxLength: 4 })),
+        maybe(fc.constantFrom(...VAT_ROUNDINGS, 'nearest')),
+        disc,
+        disc,
+        (lines, vatRounding, discount, deposit) => {
+          try {
+            const t = computeQuoteTotals({ lines, vatRounding, discount, deposit } as unknown as QuoteInput);
+            expect(t.totalMinor).toBe(t.netMinor + t.vatMinor);
+          } catch (e) {
+            expect(e).toBeInstanceOf(MoneyInputError);
+            expect((e as MoneyInputError).message.length).toBeGreaterThan(10);
+          }
+        },
+      ),
       { numRuns: 1000 },
     );
   });

@@ -237,7 +237,8 @@ describe('discounts, options, alternatives, deposit', () => {
   });
 
   it('rejects malformed input with a clear error naming the field', () => {
-    const bad = (over: Partial<QuoteLineInput>) => () => computeQuoteTotals({ lines: [line('a', over)], vatRounding: 'line-nearest-1p' });
+    const bad = (over: Partial<QuoteLineInput>) => () =>
+      computeQuoteTotals({ lines: [line('a', over)], vatRounding: 'line-nearest-1p' });
     expect(bad({ unitPriceMinor: 9.99 })).toThrow(/lines\[0\]\.unitPriceMinor/);
     expect(bad({ quantityMilli: -1000 })).toThrow(/must not be negative/);
     expect(bad({ optional: true, alternativeGroup: 'g' })).toThrow(/one or the other/);
@@ -251,7 +252,11 @@ describe('discounts, options, alternatives, deposit', () => {
       expect.unreachable();
     } catch (e) {
       expect(isEngineInputError(e)).toBe(true);
-      expect((e as MoneyInputError).finding).toMatchObject({ code: 'not-safe-integer', severity: 'error', subject: 'lines[0].vatRateBp' });
+      expect((e as MoneyInputError).finding).toMatchObject({
+        code: 'not-safe-integer',
+        severity: 'error',
+        subject: 'lines[0].vatRateBp',
+      });
     }
   });
 

@@ -21,11 +21,21 @@ const junk = fc.oneof(
 );
 const maybe = <T>(arb: fc.Arbitrary<T>) => fc.oneof(arb, junk);
 
-const itemArb = maybe(fc.record({ productId: maybe(fc.constantFrom('fx', 'drv', 'cab', 'blk')), count: maybe(fc.oneof(fc.integer({ min: -2, max: 5 }), fc.integer({ min: 0, max: Number.MAX_SAFE_INTEGER }))) }));
+const itemArb = maybe(
+  fc.record({
+    productId: maybe(fc.constantFrom('fx', 'drv', 'cab', 'blk')),
+    count: maybe(fc.oneof(fc.integer({ min: -2, max: 5 }), fc.integer({ min: 0, max: Number.MAX_SAFE_INTEGER }))),
+  }),
+);
 const runArb = maybe(
   fc.record({
     cableProductId: maybe(fc.constantFrom('cab', 'fx')),
-    length: maybe(fc.record({ value: maybe(fc.oneof(fc.double({ min: -5, max: 50 }), fc.double({ min: 0, max: 1e20 }))), unit: maybe(fc.constantFrom('m', 'ft', 'yd')) })),
+    length: maybe(
+      fc.record({
+        value: maybe(fc.oneof(fc.double({ min: -5, max: 50 }), fc.double({ min: 0, max: 1e20 }))),
+        unit: maybe(fc.constantFrom('m', 'ft', 'yd')),
+      }),
+    ),
     method: maybe(fc.constantFrom('surface-clipped', 'buried-trench', 'in-duct', 'stapled')),
   }),
 );
@@ -60,11 +70,16 @@ const catalogueArb = maybe(
 describe('malformed input never crashes', () => {
   it('takeoff', () => {
     fc.assert(
-      fc.property(maybe(fc.array(circuitArb, { maxLength: 4 })), catalogueArb, maybe(fc.record({ cableSlackBp: maybe(fc.integer({ min: -10, max: 5000 })), cableCutLengthM: maybe(fc.double()) })), (circuits, catalogue, settings) => {
-        const r = takeoff({ circuits, catalogue, settings } as unknown as TakeoffInput);
-        expect(Array.isArray(r.lines)).toBe(true);
-        for (const l of r.lines) expect(Number.isSafeInteger(l.quantityMilli)).toBe(true);
-      }),
+      fc.property(
+        maybe(fc.array(circuitArb, { maxLength: 4 })),
+        catalogueArb,
+        maybe(fc.record({ cableSlackBp: maybe(fc.integer({ min: -10, max: 5000 })), cableCutLengthM: maybe(fc.double()) })),
+        (circuits, catalogue, settings) => {
+          const r = takeoff({ circuits, catalogue, settings } as unknown as TakeoffInput);
+          expect(Array.isArray(r.lines)).toBe(true);
+          for (const l of r.lines) expect(Number.isSafeInteger(l.quantityMilli)).toBe(true);
+        },
+      ),
       { numRuns: 400 },
     );
   });
@@ -91,17 +106,66 @@ describe('malformed input never crashes', () => {
   });
 
   it('constant-voltage runs', () => {
-    const fittingArb = maybe(fc.record({ id: maybe(fc.string({ maxLength: 2 })), powerW: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))), minVoltageV: maybe(fc.double({ min: -1, max: 12 })), nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)), drive: maybe(fc.constantFrom('constant-current', 'constant-voltage')) }));
-    const spanArb = maybe(fc.record({ length: maybe(fc.record({ value: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))), unit: maybe(fc.constantFrom('m', 'ft')) })), fitting: fittingArb }));
-    const cable = maybe(fc.record({ kind: maybe(fc.constantFrom('metric', 'awg')), areaMm2: maybe(fc.constantFrom(1.5, 2.5, 3)), conductorClass: maybe(fc.constantFrom(1, 5, 7)), coating: maybe(fc.constantFrom('plain', 'tinned')), gauge: maybe(fc.integer({ min: 8, max: 18 })), stranding: maybe(fc.constantFrom('solid', 'stranded')) }));
-    const runArb2 = maybe(fc.record({ id: maybe(fc.string({ maxLength: 2 })), layout: maybe(fc.constantFrom('daisy-chain', 'home-run', 'hub', 'ring')), cable, spans: maybe(fc.array(spanArb, { maxLength: 4 })), feeder: maybe(fc.record({ length: maybe(fc.record({ value: fc.double({ min: 0, max: 10 }), unit: fc.constant('m') })), cable })) }));
+    const fittingArb = maybe(
+      fc.record({
+        id: maybe(fc.string({ maxLength: 2 })),
+        powerW: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))),
+        minVoltageV: maybe(fc.double({ min: -1, max: 12 })),
+        nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)),
+        drive: maybe(fc.constantFrom('constant-current', 'constant-voltage')),
+      }),
+    );
+    const spanArb = maybe(
+      fc.record({
+        length: maybe(
+          fc.record({
+            value: maybe(fc.oneof(fc.double({ min: -1, max: 30 }), fc.constantFrom(1e300, Number.MAX_VALUE))),
+            unit: maybe(fc.constantFrom('m', 'ft')),
+          }),
+        ),
+        fitting: fittingArb,
+      }),
+    );
+    const cable = maybe(
+      fc.record({
+        kind: maybe(fc.constantFrom('metric', 'awg')),
+        areaMm2: maybe(fc.constantFrom(1.5, 2.5, 3)),
+        conductorClass: maybe(fc.constantFrom(1, 5, 7)),
+        coating: maybe(fc.constantFrom('plain', 'tinned')),
+        gauge: maybe(fc.integer({ min: 8, max: 18 })),
+        stranding: maybe(fc.constantFrom('solid', 'stranded')),
+      }),
+    );
+    const runArb2 = maybe(
+      fc.record({
+        id: maybe(fc.string({ maxLength: 2 })),
+        layout: maybe(fc.constantFrom('daisy-chain', 'home-run', 'hub', 'ring')),
+        cable,
+        spans: maybe(fc.array(spanArb, { maxLength: 4 })),
+        feeder: maybe(
+          fc.record({ length: maybe(fc.record({ value: fc.double({ min: 0, max: 10 }), unit: fc.constant('m') })), cable }),
+        ),
+      }),
+    );
     fc.assert(
       fc.property(
-        maybe(fc.record({ id: fc.constant('psu'), nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)), ratedPowerW: maybe(fc.double({ min: -1, max: 200 })), output: maybe(fc.constantFrom('constant-current', 'constant-voltage')) })),
+        maybe(
+          fc.record({
+            id: fc.constant('psu'),
+            nominalVoltageV: maybe(fc.constantFrom(12, 24, 0)),
+            ratedPowerW: maybe(fc.double({ min: -1, max: 200 })),
+            output: maybe(fc.constantFrom('constant-current', 'constant-voltage')),
+          }),
+        ),
         maybe(fc.array(runArb2, { maxLength: 3 })),
         maybe(fc.constantFrom('uk-iec', 'us-nec')),
         maybe(fc.array(maybe(fc.record({ id: fc.string({ maxLength: 2 }), cable })), { maxLength: 3 })),
-        maybe(fc.record({ dropLimitPct: maybe(fc.double({ min: -1, max: 120 })), supplyLoadingLimitPct: maybe(fc.double({ min: -1, max: 120 })) })),
+        maybe(
+          fc.record({
+            dropLimitPct: maybe(fc.double({ min: -1, max: 120 })),
+            supplyLoadingLimitPct: maybe(fc.double({ min: -1, max: 120 })),
+          }),
+        ),
         (supply, runs, profile, cableOptions, firm) => {
           const r = checkCvRuns({ supply, runs, profile, cableOptions, firm, temperatureC: 20 } as unknown as CvInput);
           expect(Array.isArray(r.findings)).toBe(true);

@@ -11,7 +11,13 @@ const flex = (areaMm2: number): CableSpec => ({ kind: 'metric', areaMm2, conduct
 
 function chain(fittings: number): CvInput {
   return {
-    supply: { id: 'psu', nominalVoltageV: 12, ratedPowerW: Math.max(100, fittings * 2), ipCode: 'IP67', location: 'driver-outdoors' },
+    supply: {
+      id: 'psu',
+      nominalVoltageV: 12,
+      ratedPowerW: Math.max(100, fittings * 2),
+      ipCode: 'IP67',
+      location: 'driver-outdoors',
+    },
     profile: 'uk-iec',
     runs: [
       {
@@ -20,7 +26,13 @@ function chain(fittings: number): CvInput {
         cable: flex(1.5),
         spans: Array.from({ length: fittings }, (_, k) => ({
           length: metres(0.5 + (k % 3)),
-          fitting: { id: `f${k}`, powerW: 1 + (k % 4) * 0.5, minVoltageV: 10.5, ipCode: 'IP67', location: 'in-ground-walk-over' as const },
+          fitting: {
+            id: `f${k}`,
+            powerW: 1 + (k % 4) * 0.5,
+            minVoltageV: 10.5,
+            ipCode: 'IP67',
+            location: 'in-ground-walk-over' as const,
+          },
         })),
       },
     ],
@@ -35,6 +47,11 @@ export default function cvBench(): BenchResult[] {
   return [
     runCase({ name: 'cv: 12 V daisy chain, 20 fittings, 6 stocked cables', run: () => checkCvRuns(small) }),
     runCase({ name: 'cv: 12 V daisy chain, 1,000 fittings, 6 stocked cables', run: () => checkCvRuns(a) }),
-    pairedCases('cv: daisy chain doubling 1,000 -> 2,000 fittings', () => checkCvRuns(a), () => checkCvRuns(b), { maxRatio: 2.3 }),
+    pairedCases(
+      'cv: daisy chain doubling 1,000 -> 2,000 fittings',
+      () => checkCvRuns(a),
+      () => checkCvRuns(b),
+      { maxRatio: 2.3 },
+    ),
   ];
 }

@@ -48,9 +48,14 @@ export default function moneyBench(): BenchResult[] {
     const a = estimate(n);
     const b = estimate(2 * n);
     results.push(
-      pairedCases(`money: totals doubling ${n.toLocaleString('en-GB')} -> ${(2 * n).toLocaleString('en-GB')} lines`, () => computeQuoteTotals(a), () => computeQuoteTotals(b), {
-        maxRatio: 2.3,
-      }),
+      pairedCases(
+        `money: totals doubling ${n.toLocaleString('en-GB')} -> ${(2 * n).toLocaleString('en-GB')} lines`,
+        () => computeQuoteTotals(a),
+        () => computeQuoteTotals(b),
+        {
+          maxRatio: 2.3,
+        },
+      ),
     );
   }
   return results;

@@ -56,7 +56,12 @@ export interface CvRunVoltages {
 }
 
 /** Voltages at each fitting and the cable loss, for given conductor resistances (ohm/m). */
-export function runVoltages(run: PreparedCvRun, supplyV: number, spanOhmPerM: number, feederOhmPerM = spanOhmPerM): CvRunVoltages {
+export function runVoltages(
+  run: PreparedCvRun,
+  supplyV: number,
+  spanOhmPerM: number,
+  feederOhmPerM = spanOhmPerM,
+): CvRunVoltages {
   const n = run.currentsA.length;
   const voltagesV = new Array<number>(n);
   let lossW = 0;
@@ -125,10 +130,17 @@ function cableOhmPerM(spec: CableSpec, temperatureC: number, subject: string, fi
 export function checkCvRuns(input: CvInput): CvResult {
   const findings: Finding[] = [];
   let profile: CodeProfile;
-  if (isCodeProfileId(input.profile) || (typeof input.profile === 'object' && input.profile !== null && Array.isArray(input.profile.elvLimits))) {
+  if (
+    isCodeProfileId(input.profile) ||
+    (typeof input.profile === 'object' && input.profile !== null && Array.isArray(input.profile.elvLimits))
+  ) {
     profile = codeProfile(input.profile);
   } else {
-    findings.push(finding('profile-unknown', 'error', 'The code profile must be "uk-iec", "us-nec" or a full profile; using UK/IEC.', { subject: 'profile' }));
+    findings.push(
+      finding('profile-unknown', 'error', 'The code profile must be "uk-iec", "us-nec" or a full profile; using UK/IEC.', {
+        subject: 'profile',
+      }),
+    );
     profile = codeProfile('uk-iec');
   }
   const firm: CvFirmSettings = typeof input.firm === 'object' && input.firm !== null ? input.firm : {};
@@ -137,19 +149,35 @@ export function checkCvRuns(input: CvInput): CvResult {
 
   let dropLimitPct = firm.dropLimitPct ?? profile.voltageDropLimitPct ?? DEFAULT_CV_DROP_LIMIT_PCT;
   if (!isPositive(dropLimitPct) || dropLimitPct >= 100) {
-    findings.push(finding('setting-invalid', 'error', `The drop limit must be a percentage above 0 and below 100; using ${DEFAULT_CV_DROP_LIMIT_PCT} %.`, { subject: 'firm:dropLimitPct' }));
+    findings.push(
+      finding(
+        'setting-invalid',
+        'error',
+        `The drop limit must be a percentage above 0 and below 100; using ${DEFAULT_CV_DROP_LIMIT_PCT} %.`,
+        { subject: 'firm:dropLimitPct' },
+      ),
+    );
     dropLimitPct = DEFAULT_CV_DROP_LIMIT_PCT;
   }
   let loadingLimitPct = firm.supplyLoadingLimitPct ?? DEFAULT_SUPPLY_LOADING_LIMIT_PCT;
   if (!isPositive(loadingLimitPct)) {
     findings.push(
-      finding('setting-invalid', 'error', `The supply loading limit must be a percentage above 0; using ${DEFAULT_SUPPLY_LOADING_LIMIT_PCT} %.`, { subject: 'firm:supplyLoadingLimitPct' }),
+      finding(
+        'setting-invalid',
+        'error',
+        `The supply loading limit must be a percentage above 0; using ${DEFAULT_SUPPLY_LOADING_LIMIT_PCT} %.`,
+        { subject: 'firm:supplyLoadingLimitPct' },
+      ),
     );
     loadingLimitPct = DEFAULT_SUPPLY_LOADING_LIMIT_PCT;
   }
   let temperatureC = input.temperatureC ?? profile.dropWorkingTemperatureC;
   if (typeof temperatureC !== 'number' || !Number.isFinite(temperatureC)) {
-    findings.push(finding('cable-temperature-invalid', 'error', 'The conductor temperature must be a number of °C; using 20 °C.', { subject: 'temperatureC' }));
+    findings.push(
+      finding('cable-temperature-invalid', 'error', 'The conductor temperature must be a number of °C; using 20 °C.', {
+        subject: 'temperatureC',
+      }),
+    );
     temperatureC = 20;
   }
 
@@ -172,16 +200,23 @@ export function checkCvRuns(input: CvInput): CvResult {
 
   if (typeof supply !== 'object' || supply === null || !isPositive(supply.nominalVoltageV) || !isPositive(supply.ratedPowerW)) {
     findings.push(
-      finding('cv-supply-invalid', 'error', 'The supply needs a nominal voltage and a rated power, both above zero.', { subject: 'supply' }),
+      finding('cv-supply-invalid', 'error', 'The supply needs a nominal voltage and a rated power, both above zero.', {
+        subject: 'supply',
+      }),
     );
     return empty(0);
   }
   const vs = supply.nominalVoltageV;
   if (supply.output === 'constant-current') {
     findings.push(
-      finding('cv-supply-not-constant-voltage', 'error', `"${supplyName}" is a constant-current driver; fittings wired in parallel need a constant-voltage supply.`, {
-        subject: 'supply',
-      }),
+      finding(
+        'cv-supply-not-constant-voltage',
+        'error',
+        `"${supplyName}" is a constant-current driver; fittings wired in parallel need a constant-voltage supply.`,
+        {
+          subject: 'supply',
+        },
+      ),
     );
   }
   for (const limit of elvLimitsExceeded(profile, vs)) {
@@ -207,7 +242,13 @@ export function checkCvRuns(input: CvInput): CvResult {
     const subject = `cable-option:${o?.id ?? i + 1}`;
     const ohmPerM = o && typeof o === 'object' ? cableOhmPerM(o.cable, temperatureC, subject, findings) : null;
     if (ohmPerM === null) continue;
-    options.push({ id: o.id, name: o.name ?? describeCable(o.cable), areaMm2: conductorBase(o.cable).areaMm2, ohmPerM, spec: o.cable });
+    options.push({
+      id: o.id,
+      name: o.name ?? describeCable(o.cable),
+      areaMm2: conductorBase(o.cable).areaMm2,
+      ohmPerM,
+      spec: o.cable,
+    });
   }
   options.sort((a, b) => a.areaMm2 - b.areaMm2 || b.ohmPerM - a.ohmPerM);
 
@@ -223,18 +264,28 @@ export function checkCvRuns(input: CvInput): CvResult {
     const prepared = prepareRun(run, ri, vs, findings, firm.ipOverrides);
     if (!prepared) continue;
     if (runIds.has(prepared.id)) {
-      findings.push(finding('cv-run-duplicate-id', 'warning', `Run id "${prepared.id}" is used twice.`, { subject: `run:${prepared.id}` }));
+      findings.push(
+        finding('cv-run-duplicate-id', 'warning', `Run id "${prepared.id}" is used twice.`, { subject: `run:${prepared.id}` }),
+      );
     }
     runIds.add(prepared.id);
     const runSubject = `run:${prepared.id}`;
     const spanR = cableOhmPerM(run.cable, temperatureC, `${runSubject}/cable`, findings);
-    const feederR = run.layout === 'hub' && run.feeder.cable ? cableOhmPerM(run.feeder.cable, temperatureC, `${runSubject}/feeder`, findings) : spanR;
+    const feederR =
+      run.layout === 'hub' && run.feeder.cable
+        ? cableOhmPerM(run.feeder.cable, temperatureC, `${runSubject}/feeder`, findings)
+        : spanR;
     if (spanR === null || feederR === null) continue;
 
     const v = runVoltages(prepared.run, vs, spanR, feederR);
     if (!Number.isFinite(v.lossW) || !v.voltagesV.every(Number.isFinite)) {
       findings.push(
-        finding('cv-run-out-of-range', 'error', `Run ${prepared.id} gives figures too large to compute; check its lengths and fitting powers.`, { subject: runSubject }),
+        finding(
+          'cv-run-out-of-range',
+          'error',
+          `Run ${prepared.id} gives figures too large to compute; check its lengths and fitting powers.`,
+          { subject: runSubject },
+        ),
       );
       continue;
     }
@@ -258,18 +309,28 @@ export function checkCvRuns(input: CvInput): CvResult {
       const subject = `${runSubject}/fitting:${r.fittingId}`;
       if (!r.withinDropLimit) {
         findings.push(
-          finding('cv-drop-over-limit', 'warning', `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, a ${roundForDisplay(dropPct, 1)} % drop, over the ${dropLimitPct} % limit: it will be dimmer than the rest.`, {
-            subject,
-            values: { voltageV: roundForDisplay(volts, 3), dropPct: roundForDisplay(dropPct, 2), limitPct: dropLimitPct },
-          }),
+          finding(
+            'cv-drop-over-limit',
+            'warning',
+            `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, a ${roundForDisplay(dropPct, 1)} % drop, over the ${dropLimitPct} % limit: it will be dimmer than the rest.`,
+            {
+              subject,
+              values: { voltageV: roundForDisplay(volts, 3), dropPct: roundForDisplay(dropPct, 2), limitPct: dropLimitPct },
+            },
+          ),
         );
       }
       if (!r.aboveOwnMinimum) {
         findings.push(
-          finding('cv-below-fitting-minimum', 'error', `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, below the ${min} V it needs to work properly.`, {
-            subject,
-            values: { voltageV: roundForDisplay(volts, 3), minVoltageV: min ?? 0 },
-          }),
+          finding(
+            'cv-below-fitting-minimum',
+            'error',
+            `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, below the ${min} V it needs to work properly.`,
+            {
+              subject,
+              values: { voltageV: roundForDisplay(volts, 3), minVoltageV: min ?? 0 },
+            },
+          ),
         );
       }
       return r;
@@ -288,16 +349,26 @@ export function checkCvRuns(input: CvInput): CvResult {
     if (options.length > 0 && prepared.run.currentsA.length > 0) {
       if (smallestCable === null) {
         findings.push(
-          finding('cv-no-stocked-cable-fits', 'warning', `No stocked cable keeps every fitting on run "${prepared.id}" within the limits; shorten or split the run, or feed it from a hub or home runs.`, {
-            subject: runSubject,
-          }),
+          finding(
+            'cv-no-stocked-cable-fits',
+            'warning',
+            `No stocked cable keeps every fitting on run "${prepared.id}" within the limits; shorten or split the run, or feed it from a hub or home runs.`,
+            {
+              subject: runSubject,
+            },
+          ),
         );
       } else if (!ok) {
         findings.push(
-          finding('cv-cable-suggestion', 'info', `On run "${prepared.id}", ${smallestCable.name} keeps every fitting within the limits (worst ${roundForDisplay(smallestCable.worstVoltageV)} V).`, {
-            subject: runSubject,
-            values: { cableId: smallestCable.id, worstVoltageV: roundForDisplay(smallestCable.worstVoltageV, 3) },
-          }),
+          finding(
+            'cv-cable-suggestion',
+            'info',
+            `On run "${prepared.id}", ${smallestCable.name} keeps every fitting within the limits (worst ${roundForDisplay(smallestCable.worstVoltageV)} V).`,
+            {
+              subject: runSubject,
+              values: { cableId: smallestCable.id, worstVoltageV: roundForDisplay(smallestCable.worstVoltageV, 3) },
+            },
+          ),
         );
       }
     }
@@ -305,7 +376,12 @@ export function checkCvRuns(input: CvInput): CvResult {
     const runWorst: CvWorst | null =
       worstIndex < 0
         ? null
-        : { runId: prepared.id, fittingId: fittings[worstIndex]!.fittingId, voltageV: fittings[worstIndex]!.voltageV, dropPct: fittings[worstIndex]!.dropPct };
+        : {
+            runId: prepared.id,
+            fittingId: fittings[worstIndex]!.fittingId,
+            voltageV: fittings[worstIndex]!.voltageV,
+            dropPct: fittings[worstIndex]!.dropPct,
+          };
     if (runWorst && (worst === null || runWorst.voltageV < worst.voltageV)) worst = runWorst;
     const cableLengthM = prepared.run.lengthsM.reduce((s, x) => s + x, 0) + prepared.run.feederLengthM;
     runs.push({
@@ -327,22 +403,48 @@ export function checkCvRuns(input: CvInput): CvResult {
   const outputW = vs * currentA;
   let loadingPct = (outputW / supply.ratedPowerW) * 100;
   if (!Number.isFinite(loadingPct) || !Number.isFinite(outputW)) {
-    findings.push(finding('cv-run-out-of-range', 'error', 'The supply loading is too large to compute; check the fitting powers and the supply rating.', { subject: 'supply' }));
+    findings.push(
+      finding(
+        'cv-run-out-of-range',
+        'error',
+        'The supply loading is too large to compute; check the fitting powers and the supply rating.',
+        { subject: 'supply' },
+      ),
+    );
     loadingPct = Number.MAX_VALUE;
   }
   if (loadingPct > 100 + EPS) {
     findings.push(
-      finding('cv-supply-over-rating', 'error', `The fittings draw ${roundForDisplay(outputW, 1)} W from a ${supply.ratedPowerW} W supply (${roundForDisplay(loadingPct, 0)} %): it will shut down or fail.`, {
-        subject: 'supply',
-        values: { outputW: roundForDisplay(outputW, 2), ratedPowerW: supply.ratedPowerW, loadingPct: roundForDisplay(loadingPct, 1) },
-      }),
+      finding(
+        'cv-supply-over-rating',
+        'error',
+        `The fittings draw ${roundForDisplay(outputW, 1)} W from a ${supply.ratedPowerW} W supply (${roundForDisplay(loadingPct, 0)} %): it will shut down or fail.`,
+        {
+          subject: 'supply',
+          values: {
+            outputW: roundForDisplay(outputW, 2),
+            ratedPowerW: supply.ratedPowerW,
+            loadingPct: roundForDisplay(loadingPct, 1),
+          },
+        },
+      ),
     );
   } else if (loadingPct > loadingLimitPct + EPS) {
     findings.push(
-      finding('cv-supply-overloaded', 'warning', `The supply is loaded to ${roundForDisplay(loadingPct, 0)} % of its ${supply.ratedPowerW} W, over the ${loadingLimitPct} % the firm allows; choose a larger supply or split the load.`, {
-        subject: 'supply',
-        values: { outputW: roundForDisplay(outputW, 2), ratedPowerW: supply.ratedPowerW, loadingPct: roundForDisplay(loadingPct, 1), limitPct: loadingLimitPct },
-      }),
+      finding(
+        'cv-supply-overloaded',
+        'warning',
+        `The supply is loaded to ${roundForDisplay(loadingPct, 0)} % of its ${supply.ratedPowerW} W, over the ${loadingLimitPct} % the firm allows; choose a larger supply or split the load.`,
+        {
+          subject: 'supply',
+          values: {
+            outputW: roundForDisplay(outputW, 2),
+            ratedPowerW: supply.ratedPowerW,
+            loadingPct: roundForDisplay(loadingPct, 1),
+            limitPct: loadingLimitPct,
+          },
+        },
+      ),
     );
   }
 
@@ -375,7 +477,9 @@ function prepareRun(
   const id = typeof run?.id === 'string' && run.id !== '' ? run.id : `${index + 1}`;
   const subject = `run:${id}`;
   if (typeof run !== 'object' || run === null || !Array.isArray(run.spans)) {
-    findings.push(finding('cv-run-invalid', 'error', `Run ${id} needs a list of fittings with their cable lengths.`, { subject }));
+    findings.push(
+      finding('cv-run-invalid', 'error', `Run ${id} needs a list of fittings with their cable lengths.`, { subject }),
+    );
     return null;
   }
   if (run.layout !== 'daisy-chain' && run.layout !== 'home-run' && run.layout !== 'hub') {
@@ -415,29 +519,50 @@ function prepareRun(
       continue;
     }
     if (typeof f !== 'object' || f === null || !isNonNegative(f.powerW)) {
-      findings.push(finding('cv-fitting-invalid', 'error', `Fitting ${fid} on run ${id} needs a power in watts, zero or more.`, { subject: fs }));
+      findings.push(
+        finding('cv-fitting-invalid', 'error', `Fitting ${fid} on run ${id} needs a power in watts, zero or more.`, {
+          subject: fs,
+        }),
+      );
       ok = false;
       continue;
     }
     const rated = f.nominalVoltageV ?? vs;
     if (!isPositive(rated) || (f.minVoltageV !== undefined && !isPositive(f.minVoltageV))) {
-      findings.push(finding('cv-fitting-invalid', 'error', `Fitting ${fid} on run ${id} has a rated or minimum voltage that is not above zero.`, { subject: fs }));
+      findings.push(
+        finding(
+          'cv-fitting-invalid',
+          'error',
+          `Fitting ${fid} on run ${id} has a rated or minimum voltage that is not above zero.`,
+          { subject: fs },
+        ),
+      );
       ok = false;
       continue;
     }
     if (Math.abs(rated - vs) > 0.01 * vs) {
       findings.push(
-        finding('cv-fitting-voltage-mismatch', 'error', `Fitting ${fid} is rated ${rated} V but the supply is ${vs} V; use fittings and supply of the same voltage.`, {
-          subject: fs,
-          values: { fittingV: rated, supplyV: vs },
-        }),
+        finding(
+          'cv-fitting-voltage-mismatch',
+          'error',
+          `Fitting ${fid} is rated ${rated} V but the supply is ${vs} V; use fittings and supply of the same voltage.`,
+          {
+            subject: fs,
+            values: { fittingV: rated, supplyV: vs },
+          },
+        ),
       );
     }
     if (f.drive === 'constant-current') {
       findings.push(
-        finding('cc-fitting-on-cv-supply', 'error', `Fitting ${fid} is a constant-current fitting: on a constant-voltage supply it would be destroyed (common practice). It needs a constant-current driver, wired in series.`, {
-          subject: fs,
-        }),
+        finding(
+          'cc-fitting-on-cv-supply',
+          'error',
+          `Fitting ${fid} is a constant-current fitting: on a constant-voltage supply it would be destroyed (common practice). It needs a constant-current driver, wired in series.`,
+          {
+            subject: fs,
+          },
+        ),
       );
     }
     if (f.location !== undefined) {
@@ -462,5 +587,9 @@ function prepareRun(
   }
   if (!ok) return null;
   const totalCurrentA = currentsA.reduce((s, x) => s + x, 0);
-  return { id, run: { id, layout: run.layout, lengthsM, currentsA, minVoltagesV, fittingIds, feederLengthM, totalCurrentA }, loadW };
+  return {
+    id,
+    run: { id, layout: run.layout, lengthsM, currentsA, minVoltagesV, fittingIds, feederLengthM, totalCurrentA },
+    loadW,
+  };
 }

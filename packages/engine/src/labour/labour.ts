@@ -66,11 +66,20 @@ const METHOD_WORDS: Record<InstallationMethod, string> = {
 /** Minutes (up to three decimals, zero or more) -> thousandths, or null with a finding. */
 function minutesMilli(value: unknown, what: string, findings: Finding[]): number | null {
   const scaled = typeof value === 'number' && Number.isFinite(value) ? Math.round(value * 1000) : NaN;
-  if (!(scaled >= 0) || !Number.isSafeInteger(scaled) || Math.abs(scaled - (value as number) * 1000) > 1e-6 * Math.max(1, scaled)) {
+  if (
+    !(scaled >= 0) ||
+    !Number.isSafeInteger(scaled) ||
+    Math.abs(scaled - (value as number) * 1000) > 1e-6 * Math.max(1, scaled)
+  ) {
     findings.push(
-      finding('labour-table-invalid', 'error', `The labour table's ${what} must be minutes, zero or more, with at most three decimals; got ${shown(value)}.`, {
-        subject: 'labour-table',
-      }),
+      finding(
+        'labour-table-invalid',
+        'error',
+        `The labour table's ${what} must be minutes, zero or more, with at most three decimals; got ${shown(value)}.`,
+        {
+          subject: 'labour-table',
+        },
+      ),
     );
     return null;
   }
@@ -80,9 +89,14 @@ function minutesMilli(value: unknown, what: string, findings: Finding[]): number
 function rateMinor(value: unknown, what: string, findings: Finding[]): number | null {
   if (typeof value !== 'number' || !Number.isSafeInteger(value) || value < 0) {
     findings.push(
-      finding('labour-table-invalid', 'error', `The labour table's ${what} must be a whole number of minor units per hour, zero or more; got ${shown(value)}.`, {
-        subject: 'labour-table',
-      }),
+      finding(
+        'labour-table-invalid',
+        'error',
+        `The labour table's ${what} must be a whole number of minor units per hour, zero or more; got ${shown(value)}.`,
+        {
+          subject: 'labour-table',
+        },
+      ),
     );
     return null;
   }
@@ -108,9 +122,12 @@ export function labour(input: LabourInput): LabourResult {
   const perBlock = minutesMilli(table.minutesPerConnectorBlock, 'minutes per connector block', findings);
   const perTest = minutesMilli(table.minutesPerCircuitTest, 'minutes per circuit test', findings);
   const perDefaultFitting =
-    table.defaultMinutesPerFitting === undefined ? null : minutesMilli(table.defaultMinutesPerFitting, 'default minutes per fitting', findings);
+    table.defaultMinutesPerFitting === undefined
+      ? null
+      : minutesMilli(table.defaultMinutesPerFitting, 'default minutes per fitting', findings);
   const perFitting = new Map<string, number | null>();
-  const fittingMinutes = typeof table.minutesPerFitting === 'object' && table.minutesPerFitting !== null ? table.minutesPerFitting : {};
+  const fittingMinutes =
+    typeof table.minutesPerFitting === 'object' && table.minutesPerFitting !== null ? table.minutesPerFitting : {};
   for (const [kind, m] of Object.entries(fittingMinutes)) {
     perFitting.set(kind, minutesMilli(m, `minutes for a "${kind}" fitting`, findings));
   }
@@ -148,9 +165,14 @@ export function labour(input: LabourInput): LabourResult {
       if (!Number.isSafeInteger(byCircuitTotal + minutes)) throw new Error('overflow');
     } catch {
       once(`too-large:${circuitId}`, () =>
-        finding('labour-out-of-range', 'error', `The labour on circuit "${circuitId}" is too large to add up exactly; check the counts, lengths and the labour table.`, {
-          subject: `circuit:${circuitId}`,
-        }),
+        finding(
+          'labour-out-of-range',
+          'error',
+          `The labour on circuit "${circuitId}" is too large to add up exactly; check the counts, lengths and the labour table.`,
+          {
+            subject: `circuit:${circuitId}`,
+          },
+        ),
       );
       return;
     }
@@ -187,11 +209,25 @@ export function labour(input: LabourInput): LabourResult {
       const n = count(item);
       const product = n === null ? undefined : byId.get(item.productId);
       if (n === null) {
-        findings.push(finding('item-count-invalid', 'error', `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`, { subject }));
+        findings.push(
+          finding(
+            'item-count-invalid',
+            'error',
+            `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`,
+            { subject },
+          ),
+        );
         continue;
       }
       if (!product) {
-        findings.push(finding('product-unknown', 'error', `Circuit "${c.id}" uses product "${shown(item.productId)}", which is not in the catalogue.`, { subject }));
+        findings.push(
+          finding(
+            'product-unknown',
+            'error',
+            `Circuit "${c.id}" uses product "${shown(item.productId)}", which is not in the catalogue.`,
+            { subject },
+          ),
+        );
         continue;
       }
       const kind = product.fittingKind ?? 'unspecified';
@@ -200,9 +236,14 @@ export function labour(input: LabourInput): LabourResult {
       if (per === null) {
         if (own === undefined) {
           once(`kind:${kind}`, () =>
-            finding('labour-rate-missing', 'warning', `The labour table has no minutes for "${kind}" fittings (e.g. "${product.name}") and no default; they carry no labour until one is set.`, {
-              subject: `fitting-kind:${kind}`,
-            }),
+            finding(
+              'labour-rate-missing',
+              'warning',
+              `The labour table has no minutes for "${kind}" fittings (e.g. "${product.name}") and no default; they carry no labour until one is set.`,
+              {
+                subject: `fitting-kind:${kind}`,
+              },
+            ),
           );
         }
         continue;
@@ -210,25 +251,36 @@ export function labour(input: LabourInput): LabourResult {
       add(c.id, 'fitting', kind, `Install fittings: ${kind}`, 'each', per, n * 1000);
     }
 
-    if (perDriver !== null && c.powerProductId !== undefined) add(c.id, 'driver', 'driver', 'Mount and connect drivers and supplies', 'each', perDriver, 1000);
+    if (perDriver !== null && c.powerProductId !== undefined)
+      add(c.id, 'driver', 'driver', 'Mount and connect drivers and supplies', 'each', perDriver, 1000);
 
     for (const [k, item] of listOf(c.connectorBlocks, `circuit ${c.id} connector blocks`, findings).entries()) {
       const n = count(item);
       if (n === null) {
         findings.push(
-          finding('item-count-invalid', 'error', `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`, {
-            subject: `circuit:${c.id}/block:${k + 1}`,
-          }),
+          finding(
+            'item-count-invalid',
+            'error',
+            `The count for "${shown(item?.productId)}" must be a whole number, zero or more.`,
+            {
+              subject: `circuit:${c.id}/block:${k + 1}`,
+            },
+          ),
         );
         continue;
       }
-      if (perBlock !== null) add(c.id, 'connector-block', 'connector-block', 'Make off connector blocks', 'each', perBlock, n * 1000);
+      if (perBlock !== null)
+        add(c.id, 'connector-block', 'connector-block', 'Make off connector blocks', 'each', perBlock, n * 1000);
     }
 
     for (const [k, run] of listOf(c.cableRuns, `circuit ${c.id} cable runs`, findings).entries()) {
       const subject = `circuit:${c.id}/cable:${run?.id ?? k + 1}`;
       if (typeof run !== 'object' || run === null) {
-        findings.push(finding('cable-run-invalid', 'error', `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`, { subject }));
+        findings.push(
+          finding('cable-run-invalid', 'error', `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`, {
+            subject,
+          }),
+        );
         continue;
       }
       let mm: number;
@@ -243,18 +295,28 @@ export function labour(input: LabourInput): LabourResult {
       }
       if (!INSTALLATION_METHODS.includes(run.method)) {
         findings.push(
-          finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`, {
-            subject,
-          }),
+          finding(
+            'installation-method-unknown',
+            'error',
+            `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`,
+            {
+              subject,
+            },
+          ),
         );
         continue;
       }
       const per = perMetre.get(run.method);
       if (per === undefined) {
         once(`method:${run.method}`, () =>
-          finding('labour-rate-missing', 'warning', `The labour table has no minutes per metre for cable ${METHOD_WORDS[run.method]}; those runs carry no labour until it is set.`, {
-            subject: `installation-method:${run.method}`,
-          }),
+          finding(
+            'labour-rate-missing',
+            'warning',
+            `The labour table has no minutes per metre for cable ${METHOD_WORDS[run.method]}; those runs carry no labour until it is set.`,
+            {
+              subject: `installation-method:${run.method}`,
+            },
+          ),
         );
         continue;
       }
@@ -273,7 +335,14 @@ export function labour(input: LabourInput): LabourResult {
     try {
       return mulDiv(total, rate, 60_000, 'half-up');
     } catch {
-      findings.push(finding('labour-out-of-range', 'error', 'The labour price is too large to hold exactly; check the hourly rate and the minutes.', { subject: 'labour-table' }));
+      findings.push(
+        finding(
+          'labour-out-of-range',
+          'error',
+          'The labour price is too large to hold exactly; check the hourly rate and the minutes.',
+          { subject: 'labour-table' },
+        ),
+      );
       return null;
     }
   };

@@ -104,12 +104,20 @@ function checkDiscount(d: Discount, where: string | number): void {
   // field names are only built when something is wrong (no per-line garbage)
   const field = () => (typeof where === 'number' ? `lines[${where}].discount` : where);
   if (typeof d !== 'object' || d === null) {
-    throw new MoneyInputError('bad-kind', field(), `${field()} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`);
+    throw new MoneyInputError(
+      'bad-kind',
+      field(),
+      `${field()} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`,
+    );
   }
   if (d.kind === 'percent') {
     if (!isCount(d.bp)) assertNonNegativeInteger(d.bp, `${field()}.bp`);
     if (d.bp > BASIS_POINTS) {
-      throw new MoneyInputError('percent-over-100', `${field()}.bp`, `${field()} cannot be more than 100 %; got ${d.bp / 100} %.`);
+      throw new MoneyInputError(
+        'percent-over-100',
+        `${field()}.bp`,
+        `${field()} cannot be more than 100 %; got ${d.bp / 100} %.`,
+      );
     }
   } else if (d.kind === 'fixed') {
     if (!isCount(d.amountMinor)) assertNonNegativeInteger(d.amountMinor, `${field()}.amountMinor`);
@@ -150,7 +158,11 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   for (let i = 0; i < n; i++) {
     const line = lines[i]!;
     if (typeof line !== 'object' || line === null) {
-      throw new MoneyInputError('bad-line', `lines[${i}]`, `lines[${i}] must be a line with an id, quantity, unit price and VAT rate.`);
+      throw new MoneyInputError(
+        'bad-line',
+        `lines[${i}]`,
+        `lines[${i}] must be a line with an id, quantity, unit price and VAT rate.`,
+      );
     }
     if (typeof line.id !== 'string' || line.id === '') {
       throw new MoneyInputError('missing-id', `lines[${i}].id`, `lines[${i}] needs an id.`);
@@ -167,7 +179,11 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     else if (!isCount(line.unitCostMinor)) assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
     if (line.discount) checkDiscount(line.discount, i);
     if (line.alternativeGroup !== undefined && (typeof line.alternativeGroup !== 'string' || line.alternativeGroup === '')) {
-      throw new MoneyInputError('bad-group', `lines[${i}].alternativeGroup`, `lines[${i}].alternativeGroup must be a non-empty name.`);
+      throw new MoneyInputError(
+        'bad-group',
+        `lines[${i}].alternativeGroup`,
+        `lines[${i}].alternativeGroup must be a non-empty name.`,
+      );
     }
     if (line.optional && line.alternativeGroup !== undefined) {
       throw new MoneyInputError(
@@ -183,10 +199,15 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       lineDiscountMinor = takeFrom(grossMinor, line.discount);
       if (capped(grossMinor, line.discount)) {
         findings.push(
-          finding('line-discount-capped', 'warning', `The discount on line "${line.id}" is more than the line; it has been limited to the line amount.`, {
-            subject: `line:${line.id}`,
-            values: { discountMinor: line.discount.kind === 'fixed' ? line.discount.amountMinor : 0, grossMinor },
-          }),
+          finding(
+            'line-discount-capped',
+            'warning',
+            `The discount on line "${line.id}" is more than the line; it has been limited to the line amount.`,
+            {
+              subject: `line:${line.id}`,
+              values: { discountMinor: line.discount.kind === 'fixed' ? line.discount.amountMinor : 0, grossMinor },
+            },
+          ),
         );
       }
     }
@@ -219,18 +240,28 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     const chosen = members.filter((i) => out[i]!.included);
     if (chosen.length === 0) {
       findings.push(
-        finding('alternative-none-chosen', 'error', `Pick one of the alternatives in "${group}"; none is chosen, so the group adds nothing yet.`, {
-          subject: `group:${group}`,
-          values: { alternatives: members.length },
-        }),
+        finding(
+          'alternative-none-chosen',
+          'error',
+          `Pick one of the alternatives in "${group}"; none is chosen, so the group adds nothing yet.`,
+          {
+            subject: `group:${group}`,
+            values: { alternatives: members.length },
+          },
+        ),
       );
     } else if (chosen.length > 1) {
       for (const i of chosen.slice(1)) out[i]!.included = false;
       findings.push(
-        finding('alternative-several-chosen', 'error', `Only one alternative in "${group}" can be chosen; ${chosen.length} are. Only the first ("${out[chosen[0]!]!.id}") is counted.`, {
-          subject: `group:${group}`,
-          values: { chosen: chosen.length },
-        }),
+        finding(
+          'alternative-several-chosen',
+          'error',
+          `Only one alternative in "${group}" can be chosen; ${chosen.length} are. Only the first ("${out[chosen[0]!]!.id}") is counted.`,
+          {
+            subject: `group:${group}`,
+            values: { chosen: chosen.length },
+          },
+        ),
       );
     }
   }
@@ -257,10 +288,15 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     quoteDiscountMinor = takeFrom(preQuoteNet, input.discount);
     if (capped(preQuoteNet, input.discount)) {
       findings.push(
-        finding('quote-discount-capped', 'warning', 'The discount on the quote is more than the quote; it has been limited to the quote amount.', {
-          subject: 'quote',
-          values: { netBeforeDiscountMinor: preQuoteNet },
-        }),
+        finding(
+          'quote-discount-capped',
+          'warning',
+          'The discount on the quote is more than the quote; it has been limited to the quote amount.',
+          {
+            subject: 'quote',
+            values: { netBeforeDiscountMinor: preQuoteNet },
+          },
+        ),
       );
     }
     if (quoteDiscountMinor > 0) {
@@ -304,10 +340,15 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     const depositMinor = takeFrom(totalMinor, input.deposit);
     if (capped(totalMinor, input.deposit)) {
       findings.push(
-        finding('deposit-capped', 'warning', 'The deposit asked is more than the quote total; it has been limited to the total.', {
-          subject: 'deposit',
-          values: { totalMinor },
-        }),
+        finding(
+          'deposit-capped',
+          'warning',
+          'The deposit asked is more than the quote total; it has been limited to the total.',
+          {
+            subject: 'deposit',
+            values: { totalMinor },
+          },
+        ),
       );
     }
     deposit = { depositMinor, balanceMinor: totalMinor - depositMinor };
@@ -315,10 +356,15 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
 
   if (missingCost > 0) {
     findings.push(
-      finding('cost-missing', 'info', `${missingCost} line(s) have no cost, so the gross margin counts them as costing nothing.`, {
-        subject: 'quote',
-        values: { lines: missingCost },
-      }),
+      finding(
+        'cost-missing',
+        'info',
+        `${missingCost} line(s) have no cost, so the gross margin counts them as costing nothing.`,
+        {
+          subject: 'quote',
+          values: { lines: missingCost },
+        },
+      ),
     );
   }
 

@@ -16,7 +16,11 @@ export function indexCatalogue(products: readonly TakeoffProduct[]): { byId: Map
   }
   products.forEach((p, i) => {
     if (typeof p !== 'object' || p === null || typeof p.id !== 'string' || p.id === '') {
-      findings.push(finding('catalogue-product-invalid', 'error', `Catalogue entry ${i + 1} has no product id.`, { subject: `catalogue:${i}` }));
+      findings.push(
+        finding('catalogue-product-invalid', 'error', `Catalogue entry ${i + 1} has no product id.`, {
+          subject: `catalogue:${i}`,
+        }),
+      );
       return;
     }
     if (!PRODUCT_CATEGORIES.includes(p.category)) {
@@ -29,9 +33,14 @@ export function indexCatalogue(products: readonly TakeoffProduct[]): { byId: Map
     }
     if (byId.has(p.id)) {
       findings.push(
-        finding('catalogue-duplicate-id', 'warning', `Product id "${p.id}" appears twice in the catalogue; the first entry is used.`, {
-          subject: `product:${p.id}`,
-        }),
+        finding(
+          'catalogue-duplicate-id',
+          'warning',
+          `Product id "${p.id}" appears twice in the catalogue; the first entry is used.`,
+          {
+            subject: `product:${p.id}`,
+          },
+        ),
       );
       return;
     }
@@ -39,9 +48,14 @@ export function indexCatalogue(products: readonly TakeoffProduct[]): { byId: Map
     if (typeof p.name !== 'string' || p.name === '') product = { ...product, name: p.id };
     if (p.fittingKind !== undefined && typeof p.fittingKind !== 'string') {
       findings.push(
-        finding('catalogue-product-invalid', 'warning', `Product "${p.id}" has a fitting kind that is not text; it is treated as unspecified.`, {
-          subject: `product:${p.id}`,
-        }),
+        finding(
+          'catalogue-product-invalid',
+          'warning',
+          `Product "${p.id}" has a fitting kind that is not text; it is treated as unspecified.`,
+          {
+            subject: `product:${p.id}`,
+          },
+        ),
       );
       product = { ...product };
       delete product.fittingKind;
@@ -50,9 +64,14 @@ export function indexCatalogue(products: readonly TakeoffProduct[]): { byId: Map
       const v = p[key];
       if (v !== undefined && !(typeof v === 'number' && Number.isSafeInteger(v) && v >= 0)) {
         findings.push(
-          finding('catalogue-price-invalid', 'warning', `Product "${p.id}" has a ${key === 'unitCostMinor' ? 'cost' : 'price'} that is not a whole number of minor units (${shown(v)}); it is treated as missing.`, {
-            subject: `product:${p.id}`,
-          }),
+          finding(
+            'catalogue-price-invalid',
+            'warning',
+            `Product "${p.id}" has a ${key === 'unitCostMinor' ? 'cost' : 'price'} that is not a whole number of minor units (${shown(v)}); it is treated as missing.`,
+            {
+              subject: `product:${p.id}`,
+            },
+          ),
         );
         product = { ...product };
         delete product[key];

@@ -22,9 +22,14 @@ export function materialQuoteLines(
   const out = lines.map((l): QuoteLineInput => {
     if (l.unitPriceMinor === null) {
       findings.push(
-        finding('price-missing', 'warning', `"${l.name}" has no sell price in the catalogue; it is on the estimate at zero until one is set.`, {
-          subject: `product:${l.productId}`,
-        }),
+        finding(
+          'price-missing',
+          'warning',
+          `"${l.name}" has no sell price in the catalogue; it is on the estimate at zero until one is set.`,
+          {
+            subject: `product:${l.productId}`,
+          },
+        ),
       );
     }
     const q: QuoteLineInput = {

@@ -117,9 +117,14 @@ function itemCount(item: CircuitItem, subject: string): { count: number } | { fi
   const count = item.count ?? 1;
   if (!Number.isSafeInteger(count) || count < 0) {
     return {
-      finding: finding('item-count-invalid', 'error', `The count for "${shown(item.productId)}" must be a whole number, zero or more; got ${shown(count)}.`, {
-        subject,
-      }),
+      finding: finding(
+        'item-count-invalid',
+        'error',
+        `The count for "${shown(item.productId)}" must be a whole number, zero or more; got ${shown(count)}.`,
+        {
+          subject,
+        },
+      ),
     };
   }
   return { count };
@@ -132,13 +137,19 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
   let slackBp = settings.cableSlackBp ?? DEFAULT_CABLE_SLACK_BP;
   if (!Number.isSafeInteger(slackBp) || slackBp < 0) {
     findings.push(
-      finding('setting-invalid', 'error', `Cable slack must be a whole number of basis points, zero or more; using ${DEFAULT_CABLE_SLACK_BP / 100} %.`, {
-        subject: 'settings:cableSlackBp',
-      }),
+      finding(
+        'setting-invalid',
+        'error',
+        `Cable slack must be a whole number of basis points, zero or more; using ${DEFAULT_CABLE_SLACK_BP / 100} %.`,
+        {
+          subject: 'settings:cableSlackBp',
+        },
+      ),
     );
     slackBp = DEFAULT_CABLE_SLACK_BP;
   }
-  const firmCut = cutLength(settings.cableCutLengthM, 'settings:cableCutLengthM', findings) ?? toMillimetres(DEFAULT_CABLE_CUT_LENGTH_M);
+  const firmCut =
+    cutLength(settings.cableCutLengthM, 'settings:cableCutLengthM', findings) ?? toMillimetres(DEFAULT_CABLE_CUT_LENGTH_M);
 
   const tallies = new Map<string, Tally>();
   const circuitIds = new Set<string>();
@@ -148,26 +159,41 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
     const product = byId.get(productId);
     if (!product) {
       findings.push(
-        finding('product-unknown', 'error', `Circuit "${circuitId}" uses product "${shown(productId)}", which is not in the catalogue.`, {
-          subject,
-        }),
+        finding(
+          'product-unknown',
+          'error',
+          `Circuit "${circuitId}" uses product "${shown(productId)}", which is not in the catalogue.`,
+          {
+            subject,
+          },
+        ),
       );
       return false;
     }
     if (!EXPECTED[slot].includes(product.category)) {
       findings.push(
-        finding('product-wrong-category', 'error', `Circuit "${circuitId}" lists "${product.name}" as ${SLOT_WORDS[slot]}, but the catalogue has it as a ${product.category}.`, {
-          subject,
-          values: { productId, category: product.category },
-        }),
+        finding(
+          'product-wrong-category',
+          'error',
+          `Circuit "${circuitId}" lists "${product.name}" as ${SLOT_WORDS[slot]}, but the catalogue has it as a ${product.category}.`,
+          {
+            subject,
+            values: { productId, category: product.category },
+          },
+        ),
       );
     }
     let t = tallies.get(productId);
     if (!Number.isSafeInteger(quantityMilli) || !Number.isSafeInteger((t?.quantityMilli ?? 0) + quantityMilli)) {
       findings.push(
-        finding('quantity-out-of-range', 'error', `Circuit "${circuitId}": the quantity of "${product.name}" is too large to count exactly; check the count or length.`, {
-          subject,
-        }),
+        finding(
+          'quantity-out-of-range',
+          'error',
+          `Circuit "${circuitId}": the quantity of "${product.name}" is too large to count exactly; check the count or length.`,
+          {
+            subject,
+          },
+        ),
       );
       return false;
     }
@@ -186,7 +212,9 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
   const addItems = (c: TakeoffCircuit, items: readonly CircuitItem[] | undefined, slot: Slot, what: string) => {
     if (items === undefined) return;
     if (!Array.isArray(items)) {
-      findings.push(finding('circuit-invalid', 'error', `Circuit "${c.id}": ${what} must be a list.`, { subject: `circuit:${c.id}` }));
+      findings.push(
+        finding('circuit-invalid', 'error', `Circuit "${c.id}": ${what} must be a list.`, { subject: `circuit:${c.id}` }),
+      );
       return;
     }
     items.forEach((item, k) => {
@@ -204,12 +232,18 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
       continue;
     }
     if (circuitIds.has(c.id)) {
-      findings.push(finding('circuit-duplicate-id', 'error', `Circuit id "${c.id}" is used twice; its materials are counted for each.`, { subject: `circuit:${c.id}` }));
+      findings.push(
+        finding('circuit-duplicate-id', 'error', `Circuit id "${c.id}" is used twice; its materials are counted for each.`, {
+          subject: `circuit:${c.id}`,
+        }),
+      );
     }
     circuitIds.add(c.id);
     if (c.kind !== 'constant-current' && c.kind !== 'constant-voltage') {
       findings.push(
-        finding('circuit-invalid', 'error', `Circuit "${c.id}" must be constant-current or constant-voltage.`, { subject: `circuit:${c.id}` }),
+        finding('circuit-invalid', 'error', `Circuit "${c.id}" must be constant-current or constant-voltage.`, {
+          subject: `circuit:${c.id}`,
+        }),
       );
     }
 
@@ -233,16 +267,27 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
 
     addItems(c, c.fittings, 'fitting', 'fitting');
     if (Array.isArray(c.fittings) && c.fittings.length === 0) {
-      findings.push(finding('circuit-without-fittings', 'warning', `Circuit "${c.id}" has no fittings.`, { subject: `circuit:${c.id}` }));
+      findings.push(
+        finding('circuit-without-fittings', 'warning', `Circuit "${c.id}" has no fittings.`, { subject: `circuit:${c.id}` }),
+      );
     }
 
     if (!Array.isArray(c.cableRuns)) {
-      findings.push(finding('circuit-invalid', 'error', `Circuit "${c.id}": cable runs must be a list.`, { subject: `circuit:${c.id}` }));
+      findings.push(
+        finding('circuit-invalid', 'error', `Circuit "${c.id}": cable runs must be a list.`, { subject: `circuit:${c.id}` }),
+      );
     } else {
       c.cableRuns.forEach((run, k) => {
         const subject = `circuit:${c.id}/cable:${run?.id ?? k + 1}`;
         if (typeof run !== 'object' || run === null) {
-          findings.push(finding('cable-run-invalid', 'error', `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`, { subject }));
+          findings.push(
+            finding(
+              'cable-run-invalid',
+              'error',
+              `Cable run ${k + 1} on circuit "${c.id}" needs a cable, a length and a method.`,
+              { subject },
+            ),
+          );
           return;
         }
         let mm: number;
@@ -257,9 +302,14 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
         }
         if (!INSTALLATION_METHODS.includes(run.method)) {
           findings.push(
-            finding('installation-method-unknown', 'error', `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`, {
-              subject,
-            }),
+            finding(
+              'installation-method-unknown',
+              'error',
+              `Cable run ${run.id ?? k + 1} on circuit "${c.id}" has an unknown installation method "${shown(run.method)}".`,
+              {
+                subject,
+              },
+            ),
           );
         }
         add(c.id, run.cableProductId, 'cable', mm, subject);
@@ -279,30 +329,30 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
     let quantityMilli = t.quantityMilli;
     let cable: CableQuantity | null = null;
     if (p.category === 'cable') {
-      const cut = p.cutLengthM === undefined ? firmCut : cutLength(p.cutLengthM, `product:${p.id}`, findings) ?? firmCut;
-      let withSlack = t.quantityMilli;
-      let bought = t.quantityMilli;
-      try {
-        withSlack = mulDiv(t.quantityMilli, 10_000 + slackBp, 10_000, 'up');
-        bought = divRound(withSlack, cut, 'up') * cut;
-        if (!Number.isSafeInteger(bought)) throw new Error('overflow');
-      } catch {
+      const cut = p.cutLengthM === undefined ? firmCut : (cutLength(p.cutLengthM, `product:${p.id}`, findings) ?? firmCut);
+      const bought = purchasedCable(t.quantityMilli, slackBp, cut);
+      if (bought === null) {
         findings.push(
-          finding('quantity-out-of-range', 'error', `The cable for "${p.name}" is too long to add slack and round exactly; it is listed as measured.`, {
-            subject: `product:${p.id}`,
-          }),
+          finding(
+            'quantity-out-of-range',
+            'error',
+            `The cable for "${p.name}" is too long to add slack and round exactly; it is listed as measured.`,
+            {
+              subject: `product:${p.id}`,
+            },
+          ),
         );
-        withSlack = t.quantityMilli;
-        bought = t.quantityMilli;
       }
+      const withSlack = bought?.withSlack ?? t.quantityMilli;
+      const total = bought?.total ?? t.quantityMilli;
       cable = {
         runMilli: t.quantityMilli,
         slackMilli: withSlack - t.quantityMilli,
-        roundingMilli: bought - withSlack,
+        roundingMilli: total - withSlack,
         cutLengthMilli: cut,
         runCount: t.runCount,
       };
-      quantityMilli = bought;
+      quantityMilli = total;
     }
     lines.push({
       productId: p.id,
@@ -319,12 +369,25 @@ export function takeoff(input: TakeoffInput): TakeoffResult {
   return { lines, findings };
 }
 
+/** Runs + slack (rounded up to the mm), then up to whole cut lengths; null when too large to hold exactly. */
+function purchasedCable(runMilli: number, slackBp: number, cutMilli: number): { withSlack: number; total: number } | null {
+  try {
+    const withSlack = mulDiv(runMilli, 10_000 + slackBp, 10_000, 'up');
+    const total = divRound(withSlack, cutMilli, 'up') * cutMilli;
+    return Number.isSafeInteger(total) ? { withSlack, total } : null;
+  } catch {
+    return null;
+  }
+}
+
 /** A cut length in metres -> mm, or null with a finding when it is not positive. */
 function cutLength(metres: number | undefined, subject: string, findings: Finding[]): number | null {
   if (metres === undefined) return null;
   const mm = Number.isFinite(metres) ? toMillimetres(metres) : NaN;
   if (!(mm >= 1) || !Number.isSafeInteger(mm)) {
-    findings.push(finding('setting-invalid', 'error', `A cable cut length must be at least 1 mm; got ${shown(metres)} m.`, { subject }));
+    findings.push(
+      finding('setting-invalid', 'error', `A cable cut length must be at least 1 mm; got ${shown(metres)} m.`, { subject }),
+    );
     return null;
   }
   return mm;
