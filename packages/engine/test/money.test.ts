@@ -272,6 +272,12 @@ describe('discounts, options, alternatives, deposit', () => {
   it('reports lines without a cost', () => {
     const t = computeQuoteTotals({ lines: [line('a', { unitCostMinor: undefined })], vatRounding: 'line-nearest-1p' });
     expect(t.findings.map((f) => f.code)).toContain('cost-missing');
+    // an unselected option without a cost does not touch the margin, so it is not reported
+    const opt = computeQuoteTotals({
+      lines: [line('a'), line('b', { unitCostMinor: undefined, optional: true })],
+      vatRounding: 'line-nearest-1p',
+    });
+    expect(opt.findings).toEqual([]);
   });
 });
 

@@ -175,8 +175,8 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     if (line.vatRateBp > BASIS_POINTS) {
       throw new MoneyInputError('percent-over-100', `lines[${i}].vatRateBp`, `lines[${i}] has a VAT rate over 100 %.`);
     }
-    if (line.unitCostMinor === undefined) missingCost++;
-    else if (!isCount(line.unitCostMinor)) assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
+    if (line.unitCostMinor !== undefined && !isCount(line.unitCostMinor))
+      assertNonNegativeInteger(line.unitCostMinor, `lines[${i}].unitCostMinor`);
     if (line.discount) checkDiscount(line.discount, i);
     if (line.alternativeGroup !== undefined && (typeof line.alternativeGroup !== 'string' || line.alternativeGroup === '')) {
       throw new MoneyInputError(
@@ -275,6 +275,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     const t = out[i]!;
     if (!t.included) continue;
     includedIdx.push(i);
+    if (lines[i]!.unitCostMinor === undefined) missingCost++;
     grossSum += t.grossMinor;
     lineDiscountSum += t.lineDiscountMinor;
     preQuoteNet += t.netMinor;
