@@ -60,6 +60,15 @@ describe('daisy chain', () => {
   it('reports only the fitting past the 5 % limit (BS 7671 Section 715 5 %, from memory)', () => {
     // c: 0.5985 V = 4.99 %, inside; d: 0.665 V = 5.54 %, over.
     expect(r.dropLimitPct).toBe(5);
+    // the same 5 % default under the US profile (NEC 210.19(A)'s 3 % is advisory mains guidance);
+    // the firm's own limit wins
+    expect(checkCvRuns(base({ profile: 'us-nec' })).dropLimitPct).toBe(5);
+    const strict = checkCvRuns(base({ firm: { dropLimitPct: 3 } }));
+    expect(strict.findings.filter((f) => f.code === 'cv-drop-over-limit').map((f) => f.subject)).toEqual([
+      'run:deck/fitting:b', // 3.88 %
+      'run:deck/fitting:c',
+      'run:deck/fitting:d',
+    ]);
     const over = r.findings.filter((f) => f.code === 'cv-drop-over-limit');
     expect(over.map((f) => f.subject)).toEqual(['run:deck/fitting:d']);
     // still above the fitting's own 10.5 V (common practice)

@@ -72,7 +72,7 @@ export interface CvCableOption {
 }
 
 export interface CvFirmSettings {
-  /** Largest drop from the supply to any fitting, % of nominal (default: the code profile's, 5 % for UK/IEC). */
+  /** Largest drop from the supply to any fitting, % of nominal (default 5 %). */
   dropLimitPct?: number;
   /** Highest supply loading, % of rated power (default 80 %, common practice). */
   supplyLoadingLimitPct?: number;

@@ -147,7 +147,10 @@ export function checkCvRuns(input: CvInput): CvResult {
   const supply = input.supply;
   const supplyName = shown(supply?.name ?? supply?.id ?? 'supply');
 
-  let dropLimitPct = firm.dropLimitPct ?? profile.voltageDropLimitPct ?? DEFAULT_CV_DROP_LIMIT_PCT;
+  // The firm's limit, else 5 % (BS 7671 Section 715's figure for ELV lighting). The code
+  // profile's general drop figure (NEC 3 % for branch circuits) is advisory mains guidance and
+  // is not imposed on 12/24 V runs unless the firm sets it.
+  let dropLimitPct = firm.dropLimitPct ?? DEFAULT_CV_DROP_LIMIT_PCT;
   if (!isPositive(dropLimitPct) || dropLimitPct >= 100) {
     findings.push(
       finding(
