@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FieldError } from './problem';
-import { PRODUCT_KINDS, ProductKind } from './catalogue';
+import { type PRODUCT_KINDS, ProductKind } from './catalogue';
 
 /**
  * Price-list import: upload a supplier's CSV, map its columns to catalogue fields (remembered
