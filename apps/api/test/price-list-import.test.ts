@@ -2,7 +2,7 @@ import iconv from 'iconv-lite';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ImportJobResponse, MAX_PRICE_LIST_BYTES, PreviewResponse, PriceListUploadResponse, ProductListResponse, type ColumnMapping } from '@gloaming/contracts';
-import { Product } from '@gloaming/db';
+import { ImportJob, Product } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 
 let t: TestServer;
@@ -149,6 +149,17 @@ describe('price-list import', () => {
     await other.get(`/api/product-imports/${up.job.id}/rejections.csv`).expect(404);
     const installer = await t.signIn('installer');
     await installer.post('/api/product-imports').field('supplier', 'X').attach('file', Buffer.from('a\n1\n'), 'x.csv').expect(403);
+  });
+
+  it('reports an import cut off by a server restart as failed, with nothing changed', async () => {
+    const estimator = await t.signIn('estimator');
+    const up = await upload(estimator, 'Restart Supplies', 'Code,Name,Cost,List\nRS-1,Thing,1,2\n');
+    // what a restart leaves behind: the row says running, but no import is running in this process
+    await t.orm.em.fork().nativeUpdate(ImportJob, { id: up.job.id }, { state: 'running' });
+    const { job } = ImportJobResponse.parse((await estimator.get(`/api/product-imports/${up.job.id}`).expect(200)).body);
+    expect(job.state).toBe('failed');
+    expect(job.error).toMatch(/restarted while this import was running/);
+    expect(await t.orm.em.fork().count(Product, { supplier: 'Restart Supplies' })).toBe(0);
   });
 
   it('rolls everything back when the import fails part-way', async () => {

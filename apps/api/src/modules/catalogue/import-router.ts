@@ -18,7 +18,7 @@ import { moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { newStorageKey } from '../../storage/storage';
 import { guessMapping, rememberMapping, rememberedMapping } from './column-mapping';
 import { PriceListFileError, readPriceList, rejectionsCsv, rowValues } from './price-list-file';
-import { planImport, runImport } from './price-list-import';
+import { INTERRUPTED_IMPORT, planImport, runImport, runningImports } from './price-list-import';
 import { catalogueStaff } from './router';
 
 const REJECTIONS_SHOWN = 100;
@@ -135,7 +135,15 @@ export function productImportsRouter(deps: ModuleDeps, registry: RegisteredRoute
       policy: catalogueStaff,
       schemas: { params: IdParams },
       handler: async ({ res, em, input, auth }) => {
-        res.json({ job: presentImportJob(await findFirmJob(em, auth.organizationId, input.params.id)) });
+        const job = await findFirmJob(em, auth.organizationId, input.params.id);
+        if (job.state === 'running' && !runningImports.has(job.id)) {
+          // its transaction never committed: say so instead of showing it running for ever
+          job.state = 'failed';
+          job.error = INTERRUPTED_IMPORT;
+          job.finishedAt = new Date();
+          await em.flush();
+        }
+        res.json({ job: presentImportJob(job) });
       },
     }),
     route({
@@ -192,6 +200,7 @@ export function productImportsRouter(deps: ModuleDeps, registry: RegisteredRoute
         await rememberMapping(em, auth.organizationId, job.supplier, mapping);
         job.state = 'running';
         job.processedRows = 0;
+        runningImports.add(job.id);
         await em.flush();
         void runImport(orm, { id: job.id, organizationId: auth.organizationId, supplier: job.supplier }, table, mapping, logger.error);
         res.status(202).json({ job: presentImportJob(job) });

@@ -128,6 +128,12 @@ async function withWriterConnection(orm: Database, work: (writer: Database) => P
   }
 }
 
+/** Imports running in this process. A job marked running that is not here was cut off by a restart. */
+export const runningImports = new Set<string>();
+
+export const INTERRUPTED_IMPORT =
+  'The server restarted while this import was running, so it did not complete and nothing was changed. Upload the file again to import it.';
+
 /** Run a whole import for a job whose file is read: plan, write, and record the outcome. */
 export async function runImport(
   orm: Database,
@@ -136,6 +142,7 @@ export async function runImport(
   mapping: ColumnMapping,
   log: (msg: string, err?: unknown) => void,
 ): Promise<void> {
+  runningImports.add(job.id);
   const progress = async (checked: number) => {
     await orm.em.fork().nativeUpdate(ImportJob, { id: job.id }, { processedRows: checked });
   };
@@ -171,5 +178,7 @@ export async function runImport(
         },
       )
       .catch((e: unknown) => log(`Could not record the failure of import ${job.id}`, e));
+  } finally {
+    runningImports.delete(job.id);
   }
 }
