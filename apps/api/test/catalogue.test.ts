@@ -108,6 +108,12 @@ describe('catalogue products', () => {
     const cable = await estimator.post('/api/products').send({ ...EXAMPLES[4]!, supplierCode: 'X4', spec: { cores: 2, conductor: { kind: 'metric', areaMm2: 1.5, conductorClass: 3 } } }).expect(400);
     expect(paths(cable.body)).toEqual(['body.spec.conductor.conductorClass']);
 
+    const { product } = ProductResponse.parse((await estimator.post('/api/products').send({ ...EXAMPLES[7]!, supplierCode: 'X5' }).expect(201)).body);
+    const noVersion = await estimator.put(`/api/products/${product.id}`).send(EXAMPLES[7]).expect(400);
+    expect(paths(noVersion.body)).toEqual(['body.version']);
+    const badDeactivate = await estimator.post(`/api/products/${product.id}/deactivate`).send({ version: -3 }).expect(400);
+    expect(paths(badDeactivate.body)).toEqual(['body.version']);
+    await estimator.get('/api/products/12').expect(400);
     const query = await estimator.get('/api/products?kind=lamp&pageSize=0').expect(400);
     expect(paths(query.body)).toEqual(expect.arrayContaining(['query.kind', 'query.pageSize']));
   });

@@ -107,6 +107,16 @@ describe('customers and sites', () => {
     const { customer } = CustomerResponse.parse((await estimator.post('/api/customers').send(newCustomer('Ottoline Vane')).expect(201)).body);
     const noVersion = await estimator.patch(`/api/customers/${customer.id}`).send({ name: 'Ottoline' }).expect(400);
     expect(paths(noVersion.body)).toEqual(['body.version']);
+    const siteId = customer.sites[0]!.id;
+    const badSite = await estimator.post(`/api/customers/${customer.id}/sites`).send({ addressLines: 7, postcode: 'P'.repeat(40) }).expect(400);
+    expect(paths(badSite.body)).toEqual(expect.arrayContaining(['body.addressLines', 'body.postcode']));
+    const badSiteEdit = await estimator.patch(`/api/customers/${customer.id}/sites/${siteId}`).send({ addressLines: 'Somewhere', version: 'one' }).expect(400);
+    expect(paths(badSiteEdit.body)).toEqual(['body.version']);
+    const badSiteId = await estimator.delete(`/api/customers/${customer.id}/sites/nope`).expect(400);
+    expect(paths(badSiteId.body)).toEqual(['params.siteId']);
+    // a site id from another customer of the same firm is not this customer's site
+    const { customer: other } = CustomerResponse.parse((await estimator.post('/api/customers').send(newCustomer('Other Person')).expect(201)).body);
+    await estimator.delete(`/api/customers/${customer.id}/sites/${other.sites[0]!.id}`).expect(404);
   });
 
   it("answers 404 for another firm's customer and site, and 403 for installers", async () => {
