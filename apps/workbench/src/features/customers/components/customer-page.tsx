@@ -26,18 +26,15 @@ export function CustomerPage() {
         {customer.error.message}
       </FormMessage>
     );
-  // keyed by version so the forms start again from what was saved
-  return <CustomerEditor key={customer.data.version} customer={customer.data} />;
+  return <CustomerEditor key={customer.data.id} customer={customer.data} />;
 }
 
 function CustomerEditor({ customer }: { customer: Customer }) {
   const update = useUpdateCustomer();
   const [message, setMessage] = useState<Message>();
   const [saved, setSaved] = useState(false);
-  const form = useForm({
-    resolver: zodResolver(CustomerUpdate),
-    defaultValues: { name: customer.name, email: customer.email ?? '', phone: customer.phone ?? '', notes: customer.notes, version: customer.version },
-  });
+  const valuesOf = (c: Customer) => ({ name: c.name, email: c.email ?? '', phone: c.phone ?? '', notes: c.notes, version: c.version });
+  const form = useForm({ resolver: zodResolver(CustomerUpdate), defaultValues: valuesOf(customer) });
   const errors = form.formState.errors;
   const submit = form.handleSubmit((input) => {
     setMessage(undefined);
@@ -45,7 +42,11 @@ function CustomerEditor({ customer }: { customer: Customer }) {
     update.mutate(
       { id: customer.id, input },
       {
-        onSuccess: () => setSaved(true),
+        onSuccess: (updated) => {
+          // the next edit is based on the version just saved
+          form.reset(valuesOf(updated));
+          setSaved(true);
+        },
         onError: (error) => setMessage(applyServerErrors(error, form.setError, (p) => ['name', 'email', 'phone', 'notes'].includes(p))),
       },
     );
