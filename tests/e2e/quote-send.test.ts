@@ -124,9 +124,12 @@ describe('quote photos, PDF and sending', () => {
     await page.goto(`${server.baseUrl}/quotes/${quoteId}`);
     await page.getByRole('grid', { name: 'Estimate lines' }).waitFor();
 
-    // Upload from the keyboard: focus the button, Enter opens the file chooser.
+    // Upload from the keyboard: focus the button, Enter opens the file chooser. The chooser is
+    // awaited before the key press so playwright has switched on its interception in time.
+    const chooserOpened = page.waitForEvent('filechooser');
     await page.getByRole('button', { name: 'Add photos…' }).focus();
-    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Enter')]);
+    await page.keyboard.press('Enter');
+    const chooser = await chooserOpened;
     await chooser.setFiles(PHOTO);
     const thumb = page.getByRole('img', { name: 'Photo 1' });
     await thumb.waitFor();
