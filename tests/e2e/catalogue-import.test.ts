@@ -63,6 +63,11 @@ describe('customers and the price-list import', () => {
     await page.getByLabel('Access notes').fill('Side gate; beware of the geese');
     await page.getByRole('button', { name: 'Save customer' }).click();
     await page.getByRole('heading', { name: 'Marguerite Oldcastle', level: 1 }).waitFor();
+    const details = page.getByRole('form', { name: 'Customer details' });
+    await details.getByLabel('Phone').fill('01632 960 999');
+    await details.getByRole('button', { name: 'Save details' }).click();
+    await details.getByText('Saved.').waitFor();
+    await page.screenshot({ path: screenshotPath('customer-detail'), fullPage: true });
     await page.getByRole('link', { name: '← All customers' }).click();
     await page.getByRole('searchbox', { name: 'Search' }).fill('FH2 8QD');
     await page.getByRole('table', { name: 'Customers' }).getByRole('link', { name: 'Marguerite Oldcastle' }).waitFor();

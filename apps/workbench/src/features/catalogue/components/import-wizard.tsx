@@ -89,7 +89,7 @@ function UploadStep({ onUploaded }: { onUploaded: (u: PriceListUploadResponse) =
         </FormMessage>
         <TextField label="Supplier" name="supplier" autoComplete="off" hint="Column choices are remembered for each supplier." error={errors.fields.supplier} />
         <TextField label="Price list (CSV)" name="file" type="file" accept=".csv,text/csv,text/plain" error={errors.fields.file} className="[&_input]:pt-2.5" />
-        <Button type="submit" busy={uploadFile.isPending} className="self-start">
+        <Button type="submit" busy={uploadFile.isPending} className="justify-self-start">
           Upload and read columns
         </Button>
       </form>

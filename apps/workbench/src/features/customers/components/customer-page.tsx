@@ -70,7 +70,7 @@ function CustomerEditor({ customer }: { customer: Customer }) {
             <TextField label="E-mail" type="email" spellCheck={false} {...form.register('email')} error={errors.email?.message} />
             <TextField label="Phone" type="tel" {...form.register('phone')} error={errors.phone?.message} />
             <TextAreaField label="Notes" {...form.register('notes')} error={errors.notes?.message} />
-            <Button type="submit" busy={update.isPending} className="self-start">
+            <Button type="submit" busy={update.isPending} className="justify-self-start">
               Save details
             </Button>
           </form>
@@ -116,15 +116,17 @@ function SiteEditor({ customerId, site, canRemove }: { customerId: string; site:
         ) : undefined
       }
     >
-      <form noValidate onSubmit={submit} aria-label={`Site ${site.label || site.postcode}`} className="grid gap-4 sm:grid-cols-2">
+      <form noValidate onSubmit={submit} aria-label={`Site ${site.label || site.postcode}`} className="grid gap-4">
         <FormMessage tone="error" title={message?.title}>
           {message?.detail}
         </FormMessage>
-        <TextField label="Label" {...form.register('label')} error={errors.label?.message} />
-        <TextField label="Postcode" {...form.register('postcode')} error={errors.postcode?.message} />
-        <TextAreaField label="Address" {...form.register('addressLines')} error={errors.addressLines?.message} />
-        <TextAreaField label="Access notes" {...form.register('accessNotes')} error={errors.accessNotes?.message} />
-        <Button type="submit" variant="secondary" busy={update.isPending} className="self-start">
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField label="Label" {...form.register('label')} error={errors.label?.message} />
+          <TextField label="Postcode" {...form.register('postcode')} error={errors.postcode?.message} />
+          <TextAreaField label="Address" {...form.register('addressLines')} error={errors.addressLines?.message} />
+          <TextAreaField label="Access notes" {...form.register('accessNotes')} error={errors.accessNotes?.message} />
+        </div>
+        <Button type="submit" variant="secondary" busy={update.isPending} className="justify-self-start">
           Save site
         </Button>
       </form>
@@ -145,15 +147,17 @@ function NewSiteForm({ customerId }: { customerId: string }) {
   );
   return (
     <Card title="Add a site" description="Another property for the same customer.">
-      <form noValidate onSubmit={submit} aria-label="Add a site" className="grid gap-4 sm:grid-cols-2">
+      <form noValidate onSubmit={submit} aria-label="Add a site" className="grid gap-4">
         <FormMessage tone="error" title={message?.title}>
           {message?.detail}
         </FormMessage>
-        <TextField label="Label" {...form.register('label')} error={errors.label?.message} />
-        <TextField label="Postcode" {...form.register('postcode')} error={errors.postcode?.message} />
-        <TextAreaField label="Address" {...form.register('addressLines')} error={errors.addressLines?.message} />
-        <TextAreaField label="Access notes" {...form.register('accessNotes')} error={errors.accessNotes?.message} />
-        <Button type="submit" variant="secondary" busy={add.isPending} className="self-start">
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField label="Label" {...form.register('label')} error={errors.label?.message} />
+          <TextField label="Postcode" {...form.register('postcode')} error={errors.postcode?.message} />
+          <TextAreaField label="Address" {...form.register('addressLines')} error={errors.addressLines?.message} />
+          <TextAreaField label="Access notes" {...form.register('accessNotes')} error={errors.accessNotes?.message} />
+        </div>
+        <Button type="submit" variant="secondary" busy={add.isPending} className="justify-self-start">
           Add site
         </Button>
       </form>
