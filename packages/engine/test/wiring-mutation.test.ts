@@ -58,7 +58,7 @@ function slots(s: TerminalSchedule): Slot[] {
   s.blocks.forEach((b, bi) => b.terminals.forEach((t, ti) => t.conductors.forEach((_c, ci) => out.push([bi, ti, ci]))));
   return out;
 }
-const at = (s: TerminalSchedule, [b, t, c]: Slot) => s.blocks[b]!.terminals[t]!.conductors;
+const at = (s: TerminalSchedule, [b, t]: Slot) => s.blocks[b]!.terminals[t]!.conductors;
 
 function swapped(s: TerminalSchedule, x: Slot, y: Slot): TerminalSchedule {
   const m = JSON.parse(JSON.stringify(s)) as TerminalSchedule;
