@@ -139,3 +139,23 @@ describe('sending a quote', () => {
     expect(await t.orm.em.fork().count(PortalToken, { revision: theirs.revision.id })).toBe(0);
   });
 });
+
+describe('when the mail server refuses', () => {
+  it('answers 502 and leaves the revision a draft with no link', async () => {
+    const down = await startTestServer({ SMTP_PORT: '1' }); // nothing listens on port 1
+    try {
+      const g = await createGardenQuote(down.orm.em.fork(), down.firmA);
+      const agent = await down.signIn('estimator');
+      const res = await agent.post(`${base(g)}/send`).send({});
+      expect(res.status).toBe(502);
+      expect(res.body.type).toBe('/problems/mail-not-sent');
+      const em = down.orm.em.fork();
+      expect((await em.findOneOrFail(QuoteRevision, g.revision.id)).state).toBe('draft');
+      expect((await em.findOneOrFail(Quote, g.quote.id)).status).toBe('draft');
+      expect(await em.count(PortalToken, { revision: g.revision.id })).toBe(0);
+      expect(await em.count(QuoteEvent, { quote: g.quote.id, type: 'sent' })).toBe(0);
+    } finally {
+      await down.close();
+    }
+  });
+});

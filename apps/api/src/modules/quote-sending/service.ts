@@ -192,12 +192,22 @@ async function deliver(
       appendQuoteEvent(em, quote, 'resent', who, { revisionNumber: revision.number, ...data }, revision);
     }
     await em.flush();
-    await deps.mailer.send({
-      to,
-      subject: mail.subject,
-      text: mail.text,
-      attachments: [{ filename: mail.attachmentName, content: pdf, contentType: 'application/pdf' }],
-    });
+    try {
+      await deps.mailer.send({
+        to,
+        subject: mail.subject,
+        text: mail.text,
+        attachments: [{ filename: mail.attachmentName, content: pdf, contentType: 'application/pdf' }],
+      });
+    } catch (err) {
+      deps.logger.error(`Quote e-mail to ${to} was not accepted by the mail server`, err);
+      throw new HttpError(
+        502,
+        'mail-not-sent',
+        'E-mail not sent',
+        'The mail server did not accept the message. Nothing was sent and the quote is unchanged; try again in a moment.',
+      );
+    }
     await em.commit();
   } catch (err) {
     await em.rollback();
