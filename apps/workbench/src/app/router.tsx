@@ -13,6 +13,7 @@ import { teamQueryOptions } from '../features/team/api/get-team';
 import { quotesQueryOptions } from '../features/quotes/api/list-quotes';
 import { quoteQueryOptions } from '../features/quotes/api/get-quote';
 import { QuoteEditorPage } from '../features/quotes/components/quote-editor-page';
+import { quotePhotosQueryOptions } from '../features/photos/api/list-photos';
 import { QuotesHome, quoteFiltersFrom } from '../features/quotes/components/quotes-home';
 import { CataloguePage, productQueryFromSearch } from '../features/catalogue/components/catalogue-page';
 import { ImportWizard } from '../features/catalogue/components/import-wizard';
@@ -71,7 +72,11 @@ export function createRouter(queryClient: QueryClient) {
           element: <QuoteEditorPage />,
           loader: async ({ request, params }) => {
             await requireRole(queryClient, request, rolesFor('/quotes'));
-            if (params.quoteId) await queryClient.prefetchQuery(quoteQueryOptions(params.quoteId));
+            if (params.quoteId)
+              await Promise.all([
+                queryClient.prefetchQuery(quoteQueryOptions(params.quoteId)),
+                queryClient.prefetchQuery(quotePhotosQueryOptions(params.quoteId)),
+              ]);
             return null;
           },
         },
