@@ -3,6 +3,7 @@ import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote, CUSTOMER_NAME, GARDEN_DEPOSIT_TEXT, GARDEN_TOTAL_TEXT } from './estimate-fixture';
+import { gardenJpeg, tinyPng } from './image-fixtures';
 
 let t: TestServer;
 beforeAll(async () => {
@@ -49,6 +50,32 @@ describe('GET /api/quotes/:id/revisions/:revisionId/pdf', () => {
     expect(text).not.toContain('17.17');
     expect(text.toLowerCase()).not.toContain('margin');
     expect(text.toLowerCase()).not.toContain('cost');
+  });
+
+  it('prints the photos chosen for the quote, in order, and leaves the others out', async () => {
+    const g = await createGardenQuote(t.orm.em.fork(), t.firmA);
+    const agent = await t.signIn('owner');
+    const up = (bytes: Buffer, caption: string) =>
+      agent
+        .post(`/api/quotes/${g.quote.id}/photos`)
+        .field('caption', caption)
+        .attach('file', bytes, { filename: 'x.jpg', contentType: 'image/jpeg' });
+    const shown = (await up(await gardenJpeg(), 'Front path at dusk')).body.photo;
+    const hidden = (await up(await tinyPng(), 'Inside the shed')).body.photo;
+    const plan = (await up(await tinyPng(), 'Cable route plan')).body.photo;
+    expect(
+      (await agent.patch(`/api/quotes/${g.quote.id}/photos/${hidden.id}`).send({ onQuote: false, version: hidden.version }))
+        .status,
+    ).toBe(200);
+    await agent.put(`/api/quotes/${g.quote.id}/photos/order`).send({ photoIds: [plan.id, hidden.id, shown.id] });
+
+    const res = await agent.get(`/api/quotes/${g.quote.id}/revisions/${g.revision.id}/pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const text = await pdfText(res.body as Buffer);
+    expect(text).toContain('photos and plans');
+    expect(text).not.toContain('Inside the shed');
+    expect(text.indexOf('Cable route plan')).toBeGreaterThan(-1);
+    expect(text.indexOf('Cable route plan')).toBeLessThan(text.indexOf('Front path at dusk'));
   });
 
   it("answers 404 for another firm's quote or a revision of another quote, and 403 for installers", async () => {

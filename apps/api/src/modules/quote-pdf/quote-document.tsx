@@ -135,7 +135,7 @@ function Section({ section }: { section: PdfSection }) {
       <View style={s.sectionHead} wrap={false} minPresenceAhead={40}>
         <Text style={s.sectionName}>{section.name}</Text>
       </View>
-      <View style={s.colHead} fixed={false}>
+      <View style={s.colHead} fixed>
         <Text style={s.cDesc}>Description</Text>
         <Text style={s.cQty}>Qty</Text>
         <Text style={s.cUnit}>Unit price</Text>
