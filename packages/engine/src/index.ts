@@ -50,3 +50,5 @@ export * from './money';
 export * from './takeoff';
 export * from './labour';
 export * from './cv';
+// -- a designed circuit (placements and catalogue products) mapped to the checks above
+export * from './circuit-design';

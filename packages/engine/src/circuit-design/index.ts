@@ -1,0 +1,4 @@
+export * from './design-types';
+export * from './evaluate-circuit';
+export * from './circuit-materials';
+export * from './circuit-suggestions';
