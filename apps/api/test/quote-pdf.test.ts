@@ -2,7 +2,7 @@ import { writeFile } from 'node:fs/promises';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './harness';
-import { createGardenQuote, CUSTOMER_NAME, GARDEN_DEPOSIT_TEXT, GARDEN_TOTAL_TEXT } from './estimate-fixture';
+import { createGardenQuote, CUSTOMER_NAME, GARDEN_DEPOSIT_TEXT, GARDEN_TOTAL_TEXT, gardenEstimate } from './estimate-fixture';
 import { gardenJpeg, tinyPng } from './image-fixtures';
 
 let t: TestServer;
@@ -76,6 +76,17 @@ describe('GET /api/quotes/:id/revisions/:revisionId/pdf', () => {
     expect(text).not.toContain('Inside the shed');
     expect(text.indexOf('Cable route plan')).toBeGreaterThan(-1);
     expect(text.indexOf('Cable route plan')).toBeLessThan(text.indexOf('Front path at dusk'));
+  });
+
+  it('answers 422 with the reason, not a crash, for an estimate the engine cannot price', async () => {
+    const content = gardenEstimate();
+    content.sections[1]!.lines[1]!.alternativeGroup = 'Tree'; // optional and pick-one at once
+    const g = await createGardenQuote(t.orm.em.fork(), t.firmA, { content });
+    const agent = await t.signIn('estimator');
+    const res = await agent.get(`/api/quotes/${g.quote.id}/revisions/${g.revision.id}/pdf`);
+    expect(res.status).toBe(422);
+    expect(res.headers['content-type']).toContain('application/problem+json');
+    expect(res.body.detail).toContain('both optional and part of a pick-one group');
   });
 
   it("answers 404 for another firm's quote or a revision of another quote, and 403 for installers", async () => {

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PortalToken, Quote, QuoteEvent, QuoteRevision } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
-import { createGardenQuote, CUSTOMER_NAME, GARDEN_TOTAL_TEXT } from './estimate-fixture';
+import { createGardenQuote, CUSTOMER_NAME, GARDEN_TOTAL_TEXT, gardenEstimate } from './estimate-fixture';
 import { canonicalJson } from '../src/modules/quote-sending/canonical-json';
 
 let t: TestServer;
@@ -116,6 +116,12 @@ describe('sending a quote', () => {
     const preview = await agent.get(`${base(noEmail)}/send-preview`);
     expect(preview.body.blockers.map((x: { code: string }) => x.code)).toEqual(['customer-without-email']);
     expect(await t.orm.em.fork().count(PortalToken, { revision: noEmail.revision.id })).toBe(0);
+    const content = gardenEstimate();
+    content.sections[1]!.lines[1]!.alternativeGroup = 'Tree'; // optional and pick-one at once: the engine refuses it
+    const unpriceable = await createGardenQuote(t.orm.em.fork(), t.firmA, { content });
+    const c = await agent.post(`${base(unpriceable)}/send`).send({});
+    expect(c.status).toBe(422);
+    expect(c.body.errors.map((e: { path: string }) => e.path)).toContain('quote.optional-and-alternative');
     const bad = await agent.post(`${base(noEmail)}/send`).send({ to: 'not an address', message: 5 });
     expect(bad.status).toBe(400);
     expect(bad.body.errors.map((e: { path: string }) => e.path).sort()).toEqual(['body.message', 'body.to']);

@@ -23,7 +23,7 @@ export const SendQuoteRequest = z.object({
 });
 export type SendQuoteRequest = z.infer<typeof SendQuoteRequest>;
 
-export const SendPreviewQuery = z.object({ message: Message.optional(), to: z.string().max(254).optional() });
+export const SendPreviewQuery = z.object({ message: Message.optional() });
 export type SendPreviewQuery = z.infer<typeof SendPreviewQuery>;
 
 export const SendPreviewResponse = z.object({

@@ -1,6 +1,14 @@
-import { estimateQuoteInput, formatQuoteNumber, type RevisionSettings } from '@gloaming/contracts';
+import { estimateQuoteInput, formatQuoteNumber, type EstimateContent, type RevisionSettings } from '@gloaming/contracts';
 import { Customer, Organization, Photo, Site, User, type EntityManager, type Quote, type QuoteRevision } from '@gloaming/db';
-import { computeQuoteTotals, formatBasisPoints, formatMoney, formatQuantityMilli } from '@gloaming/engine';
+import {
+  computeQuoteTotals,
+  formatBasisPoints,
+  formatMoney,
+  formatQuantityMilli,
+  isEngineInputError,
+  type QuoteTotals,
+} from '@gloaming/engine';
+import { HttpError } from '../../http/problem';
 import type { FileStorage } from '../../storage/storage';
 import { revisionContent, revisionSettings } from '../quotes/service';
 import {
@@ -27,6 +35,25 @@ export function validUntilFor(quote: Quote, revision: QuoteRevision, settings: R
   return new Date(from.getTime() + settings.quoteValidityDays * DAY_MS);
 }
 
+/**
+ * The engine's totals for a document that goes to the homeowner. Content the engine refuses
+ * (say, a line both optional and in a pick-one group) is a 422 naming the problem, not a crash.
+ */
+export function priceForCustomer(content: EstimateContent, settings: RevisionSettings): QuoteTotals {
+  try {
+    return computeQuoteTotals(estimateQuoteInput(content, settings));
+  } catch (err) {
+    if (isEngineInputError(err))
+      throw new HttpError(
+        422,
+        'estimate-not-priceable',
+        'The estimate cannot be priced',
+        `${err.message} Fix it in the estimate first.`,
+      );
+    throw err;
+  }
+}
+
 export interface PdfDates {
   /** The date printed as issued; defaults to when the revision was sent, else now. */
   issuedOn?: Date;
@@ -48,7 +75,7 @@ export async function buildQuotePdfModel(
   const customer = await em.findOneOrFail(Customer, quote.customer.id);
   const site = quote.site ? await em.findOne(Site, quote.site.id) : null;
   const estimator = await em.findOne(User, quote.estimator.id);
-  const totals = computeQuoteTotals(estimateQuoteInput(content, settings));
+  const totals = priceForCustomer(content, settings);
   const { currency, locale } = settings;
   const money = (minor: number) => formatMoney(minor, currency, locale);
   const date = (d: Date) =>

@@ -15,11 +15,11 @@ import {
   type Quote,
   type QuoteRevision,
 } from '@gloaming/db';
-import { computeQuoteTotals, formatMoney } from '@gloaming/engine';
+import { computeQuoteTotals, formatMoney, isEngineInputError } from '@gloaming/engine';
 import type { ModuleDeps } from '../../app-deps';
 import { hashToken } from '../../auth/tokens';
 import { conflict, HttpError } from '../../http/problem';
-import { buildQuotePdfModel, validUntilFor } from '../quote-pdf/build-pdf-model';
+import { buildQuotePdfModel, priceForCustomer, validUntilFor } from '../quote-pdf/build-pdf-model';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
 import { appendQuoteEvent, markRevisionSent, revisionContent, revisionSettings, type Actor } from '../quotes/service';
 import { canonicalJson } from './canonical-json';
@@ -50,9 +50,14 @@ export async function sendBlockers(
     });
   if (blockers.length === 0) {
     // the engine's own findings of severity "error" (circuits will add theirs) must be acknowledged
-    const totals = computeQuoteTotals(estimateQuoteInput(content, settings));
-    for (const f of totals.findings)
-      if (f.severity === 'error' && !acknowledged.includes(f.code)) blockers.push({ code: f.code, message: f.message });
+    try {
+      const totals = computeQuoteTotals(estimateQuoteInput(content, settings));
+      for (const f of totals.findings)
+        if (f.severity === 'error' && !acknowledged.includes(f.code)) blockers.push({ code: f.code, message: f.message });
+    } catch (err) {
+      if (!isEngineInputError(err)) throw err;
+      blockers.push({ code: err.finding.code, message: `${err.message} Fix it in the estimate first.` });
+    }
   }
   return blockers;
 }
@@ -102,7 +107,7 @@ export async function composeQuoteMail(
   const settings = revisionSettings(revision);
   const content = revisionContent(revision);
   const customer = await em.findOneOrFail(Customer, quote.customer.id);
-  const totals = computeQuoteTotals(estimateQuoteInput(content, settings));
+  const totals = priceForCustomer(content, settings);
   const validUntil = p.validUntil ?? validUntilFor(quote, revision, settings, p.issuedOn);
   const reference = formatQuoteNumber(quote.number);
   await em.populate(quote, ['organization']);
