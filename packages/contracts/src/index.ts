@@ -9,3 +9,4 @@ export * from './price-list-import';
 export * from './photos';
 export * from './quote-sending';
 export * from './quotes';
+export * from './circuits';

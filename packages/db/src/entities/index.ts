@@ -12,8 +12,10 @@ export { QuoteRevision, REVISION_STATES, type RevisionState } from './quote-revi
 export { QuoteEvent } from './quote-event';
 export { Photo } from './photo';
 export { PortalToken } from './portal-token';
+export { Circuit, CIRCUIT_KINDS, type CircuitKind } from './circuit';
 
 import { AuthToken } from './auth-token';
+import { Circuit } from './circuit';
 import { Customer } from './customer';
 import { ImportJob } from './import-job';
 import { ImportMapping } from './import-mapping';
@@ -44,4 +46,5 @@ export const entities = [
   QuoteEvent,
   Photo,
   PortalToken,
+  Circuit,
 ];

@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201202956_circuits } from './Migration20261201202956_circuits';
 import { Migration20261201194445_catalogue_and_quotes } from './Migration20261201194445_catalogue_and_quotes';
 import { Migration20261201193224_initial } from './Migration20261201193224_initial';
 
@@ -10,5 +11,6 @@ import { Migration20261201193224_initial } from './Migration20261201193224_initi
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201193224_initial', class: Migration20261201193224_initial },
   { name: 'Migration20261201194445_catalogue_and_quotes', class: Migration20261201194445_catalogue_and_quotes },
+  { name: 'Migration20261201202956_circuits', class: Migration20261201202956_circuits },
   // next migration
 ];
