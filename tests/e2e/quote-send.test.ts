@@ -139,6 +139,7 @@ describe('quote photos, PDF and sending', () => {
     await caption.press('Enter');
     await page.getByRole('img', { name: 'Front path at dusk' }).waitFor();
     await page.screenshot({ path: screenshotPath('quote-send-photos'), fullPage: true });
+    await page.getByRole('region', { name: 'Photos and plans' }).screenshot({ path: screenshotPath('quote-send-photos-panel') });
 
     // The PDF as the homeowner will get it.
     const [download] = await Promise.all([
