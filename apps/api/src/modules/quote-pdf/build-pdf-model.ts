@@ -10,6 +10,7 @@ import {
 } from '@gloaming/engine';
 import { HttpError } from '../../http/problem';
 import type { FileStorage } from '../../storage/storage';
+import { THUMBNAIL_EDGE } from '../photos/image-intake';
 import { revisionContent, revisionSettings } from '../quotes/service';
 import {
   ELECTRICAL_SAFETY_NOTE,
@@ -140,7 +141,7 @@ export async function buildQuotePdfModel(
   for (const p of chosen) {
     try {
       const jpeg = await storage.get(p.thumbnailKey);
-      const scale = Math.min(1, 720 / Math.max(p.width, p.height));
+      const scale = Math.min(1, THUMBNAIL_EDGE / Math.max(p.width, p.height));
       photos.push({ caption: p.caption, jpeg, width: Math.round(p.width * scale), height: Math.round(p.height * scale) });
     } catch {
       // a missing file should not stop the quote going out; the photo is simply left off

@@ -1,6 +1,5 @@
 import { Worker } from 'node:worker_threads';
 import type { QuotePdfModel } from './pdf-model';
-import { renderQuotePdf } from './render-quote-pdf';
 
 /** Turns a quote's PDF model into bytes. */
 export interface PdfRenderer {
@@ -65,9 +64,6 @@ export function createWorkerPdfRenderer(): PdfRenderer {
     },
   };
 }
-
-/** Renders on the calling thread: for scripts and as a fallback. */
-export const inlinePdfRenderer: PdfRenderer = { render: renderQuotePdf, close: async () => {} };
 
 let shared: PdfRenderer | null = null;
 
