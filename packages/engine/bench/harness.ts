@@ -3,6 +3,10 @@
  * the median and p95 in milliseconds beside its target. Benchmarks never fail a build;
  * they report. Use `pairedCases` when a ratio between two variants is asked for: both
  * sides are measured in the same run, alternating, and the ratio of medians reported.
+ *
+ * Run under `node --expose-gc` (the `bench` script does): before every timed block the
+ * harness collects the garbage left by whatever ran before, so each block pays for its own
+ * garbage only. Without --expose-gc the figures are still printed, with a note.
  */
 import { performance } from 'node:perf_hooks';
 
@@ -24,6 +28,8 @@ export interface BenchResult {
   p95Ms: number;
   targetMs?: number;
   targetOn?: 'median' | 'p95';
+  /** For paired cases: the largest ratio b/a the target allows. */
+  targetRatio?: number;
   meetsTarget?: boolean;
   note?: string;
 }
@@ -36,7 +42,22 @@ function quantile(sorted: number[], q: number): number {
 
 let sink: unknown;
 
-/** Time single iterations; for sub-microsecond work, batch so each sample is measurable. */
+/** The collector when node runs with --expose-gc, else null (figures then carry a note). */
+const collect: (() => void) | null = typeof globalThis.gc === 'function' ? globalThis.gc : null;
+
+/** Note added to every result when the collector is not exposed. */
+const GC_NOTE = 'run without --expose-gc: earlier garbage may be collected inside this timing';
+
+function withGcNote(note: string | undefined): string | undefined {
+  if (collect) return note;
+  return note === undefined ? GC_NOTE : `${note}; ${GC_NOTE}`;
+}
+
+/**
+ * Time single iterations; for sub-microsecond work, batch so each sample is measurable.
+ * After the warm-up, the garbage of everything before is collected (with --expose-gc), so
+ * the timed iterations pay only for the garbage they make themselves.
+ */
 export function measure(run: () => unknown, iterations?: number): { samples: number[]; iterations: number } {
   // warm-up
   const warmStart = performance.now();
@@ -49,6 +70,8 @@ export function measure(run: () => unknown, iterations?: number): { samples: num
   const batch = perIter < 0.01 ? Math.ceil(0.01 / Math.max(perIter, 1e-6)) : 1;
   const n = iterations ?? Math.max(20, Math.min(2000, Math.ceil(500 / Math.max(perIter * batch, 1e-3))));
   const samples: number[] = [];
+  sink = undefined;
+  collect?.();
   for (let i = 0; i < n; i++) {
     const t0 = performance.now();
     for (let b = 0; b < batch; b++) sink = run();
@@ -68,12 +91,15 @@ export function runCase(c: BenchCase): BenchResult {
     result.targetOn = c.targetOn ?? 'median';
     result.meetsTarget = (result.targetOn === 'p95' ? p95Ms : medianMs) <= c.targetMs;
   }
+  const note = withGcNote(undefined);
+  if (note !== undefined) result.note = note;
   return result;
 }
 
 /**
  * Measure two variants alternating in one run (a, b, a, b...) and report the ratio of the
- * medians b/a. Used for growth checks: a = input n, b = input 2n.
+ * medians b/a. Used for growth checks: a = input n, b = input 2n. Each block is collected
+ * clean before it is timed (see `measure`), so neither side is charged for the other's garbage.
  */
 export function pairedCases(
   name: string,
@@ -97,12 +123,14 @@ export function pairedCases(
     medianMs: round(mb),
     p95Ms: round(quantile([...bs].sort((x, y) => x - y), 0.95)),
     ratio: round(ratio),
-    note: `median at n ${round(ma)} ms, at 2n ${round(mb)} ms`,
   };
+  let note = `median at n ${round(ma)} ms, at 2n ${round(mb)} ms`;
   if (opts.maxRatio !== undefined) {
+    res.targetRatio = opts.maxRatio;
     res.meetsTarget = ratio <= opts.maxRatio;
-    res.note += `; target ratio <= ${opts.maxRatio}`;
+    note += `; target ratio <= ${opts.maxRatio}`;
   }
+  res.note = withGcNote(note) ?? note;
   void sink;
   return res;
 }

@@ -1,6 +1,17 @@
 import type { Finding } from '../findings';
 import { roundForDisplay as r2 } from '../units/round';
-import { assembleResult, evaluateDriverParts, prepareString, type PreparedString } from '../series/series-string';
+import {
+  driverIpFindings,
+  evaluateDriver,
+  evaluateDriverParts,
+  fillDriverCore,
+  headroomPctOf,
+  newDriverCore,
+  prepareString,
+  VERDICT,
+  VERDICT_ELV_BASE,
+  type PreparedString,
+} from '../series/series-string';
 import type { LedDriver, SeriesStringResult, StringLayout } from '../series/series-types';
 
 /**
@@ -14,19 +25,26 @@ export function rejectsDriver(f: Finding): boolean {
   return false;
 }
 
+/**
+ * A driver that fits. `reasons` and `result` are worked out when first read (and kept), so
+ * ranking a catalogue of thousands costs one cheap screen per driver; JSON.stringify (via
+ * `toJSON`) writes them out in full. Copy with `toJSON()`, not a spread or structuredClone.
+ */
 export interface SuitableDriver {
   driver: LedDriver;
   costMinor: number | null;
   headroomPct: number;
   /** Plain-English reasons it fits. */
-  reasons: string[];
-  result: SeriesStringResult;
+  readonly reasons: string[];
+  /** The full check of the string on this driver. */
+  readonly result: SeriesStringResult;
 }
 
+/** A driver that does not fit; `reasons` are worked out when first read (see SuitableDriver). */
 export interface RejectedDriver {
   driver: LedDriver;
   /** Every finding that rules it out, first the most telling. */
-  reasons: Finding[];
+  readonly reasons: Finding[];
 }
 
 export interface DriverChoice {
@@ -79,30 +97,92 @@ function compareSuitable(a: SuitableDriver, b: SuitableDriver): number {
   return a.driver.id < b.driver.id ? -1 : a.driver.id > b.driver.id ? 1 : 0;
 }
 
-/** Rank a catalogue of drivers for a prepared string. */
+/** The findings that rule a driver out, first the most telling (empty when it fits). */
+export function rejectionReasons(prepared: PreparedString, driver: LedDriver): Finding[] {
+  const e = evaluateDriverParts(prepared, driver);
+  const own = e.own.filter(rejectsDriver);
+  const mismatch = e.cvSupply ? [] : e.atCurrent.rejecting;
+  if (own.length === 0) return mismatch.slice();
+  own.sort((a, b) => reasonRank(a) - reasonRank(b));
+  // current mismatches rank after a broken record or a constant-voltage output, before the rest
+  let k = 0;
+  while (k < own.length && reasonRank(own[k]!) < CURRENT_RANK) k++;
+  return own.slice(0, k).concat(mismatch, own.slice(k));
+}
+
+class ChosenDriver implements SuitableDriver {
+  readonly #prepared: PreparedString;
+  #result: SeriesStringResult | undefined;
+  #reasons: string[] | undefined;
+  constructor(
+    prepared: PreparedString,
+    readonly driver: LedDriver,
+    readonly costMinor: number | null,
+    readonly headroomPct: number,
+  ) {
+    this.#prepared = prepared;
+  }
+  get result(): SeriesStringResult {
+    return (this.#result ??= evaluateDriver(this.#prepared, this.driver));
+  }
+  get reasons(): string[] {
+    return (this.#reasons ??= whyItFits(this.driver, this.result));
+  }
+  toJSON(): { driver: LedDriver; costMinor: number | null; headroomPct: number; reasons: string[]; result: SeriesStringResult } {
+    return { driver: this.driver, costMinor: this.costMinor, headroomPct: this.headroomPct, reasons: this.reasons, result: this.result };
+  }
+}
+
+class RuledOutDriver implements RejectedDriver {
+  readonly #prepared: PreparedString;
+  #reasons: Finding[] | undefined;
+  constructor(
+    prepared: PreparedString,
+    readonly driver: LedDriver,
+  ) {
+    this.#prepared = prepared;
+  }
+  get reasons(): Finding[] {
+    return (this.#reasons ??= rejectionReasons(this.#prepared, this.driver));
+  }
+  toJSON(): { driver: LedDriver; reasons: Finding[] } {
+    return { driver: this.driver, reasons: this.reasons };
+  }
+}
+
+/** Verdict bits that rule a driver out under this profile (ELV limits only when an error). */
+function rejectingVerdicts(prepared: PreparedString): number {
+  let mask = VERDICT.voltageBelowWindow | VERDICT.voltageAboveWindow | VERDICT.powerBelowWindow | VERDICT.powerAboveWindow | VERDICT.headroomBelowMargin;
+  const limits = prepared.profile.elvLimits;
+  for (let k = 0; k < limits.length; k++) if (limits[k]!.severity === 'error') mask |= VERDICT_ELV_BASE << k;
+  return mask;
+}
+
+/**
+ * Rank a catalogue of drivers for a prepared string. Each driver is screened on its figures
+ * alone (the same checks the full evaluation makes, see fillDriverCore); findings, messages
+ * and full results are built only for the drivers someone reads.
+ */
 export function chooseDriversPrepared(prepared: PreparedString, catalogue: readonly LedDriver[]): DriverChoice {
   const suitable: SuitableDriver[] = [];
   const rejected: RejectedDriver[] = [];
+  const core = newDriverCore(prepared);
+  const rejecting = rejectingVerdicts(prepared);
+  const ipRejects = new Map<string, boolean>();
   for (const driver of catalogue) {
-    const e = evaluateDriverParts(prepared, driver);
-    const own = e.own.filter(rejectsDriver);
-    const mismatch = e.cvSupply ? [] : e.atCurrent.rejecting;
-    if (own.length > 0 || mismatch.length > 0) {
-      own.sort((a, b) => reasonRank(a) - reasonRank(b));
-      // current mismatches rank after a broken record or a constant-voltage output, before the rest
-      const early = own.filter((f) => reasonRank(f) < CURRENT_RANK);
-      const late = own.filter((f) => reasonRank(f) >= CURRENT_RANK);
-      rejected.push({ driver, reasons: early.concat(mismatch, late) });
-    } else {
-      const result = assembleResult(prepared, e);
-      suitable.push({
-        driver,
-        costMinor: driver.costMinor ?? null,
-        headroomPct: result.headroomPct ?? 0,
-        reasons: whyItFits(driver, result),
-        result,
-      });
+    fillDriverCore(prepared, driver, core);
+    let out = !core.recordOk || (core.verdicts & rejecting) !== 0 || (!core.cvSupply && core.at.rejecting.length > 0);
+    if (!out) {
+      const key = driver.ipCode ?? '';
+      let ip = ipRejects.get(key);
+      if (ip === undefined) {
+        ip = driverIpFindings(prepared, driver.ipCode).some(rejectsDriver);
+        ipRejects.set(key, ip);
+      }
+      out = ip;
     }
+    if (out) rejected.push(new RuledOutDriver(prepared, driver));
+    else suitable.push(new ChosenDriver(prepared, driver, driver.costMinor ?? null, headroomPctOf(core) ?? 0));
   }
   suitable.sort(compareSuitable);
   return { suitable, rejected, stringFindings: prepared.layoutFindings };

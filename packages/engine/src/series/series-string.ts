@@ -256,53 +256,69 @@ export interface DriverLimits {
   powerMaxW: number | null;
 }
 
+/** The tighter of the power window's top and the stated maximum power, W; null when neither. */
+function powerMaxOf(driver: LedDriver): number | null {
+  const a = driver.powerWindowW?.maxW;
+  const b = driver.maxPowerW;
+  if (a === undefined) return b === undefined ? null : b;
+  return b === undefined ? a : Math.min(a, b);
+}
+
 export function driverLimits(driver: LedDriver): DriverLimits {
   const vw = driver.voltageWindowV;
   const pw = driver.powerWindowW;
-  const maxP = driver.maxPowerW;
-  const powerMaxCandidates = [pw?.maxW, maxP].filter((x): x is number => x !== undefined);
   return {
     voltageMinV: vw ? vw.minV : null,
     voltageMaxV: vw ? vw.maxV : null,
     powerMinW: pw ? pw.minW : null,
-    powerMaxW: powerMaxCandidates.length > 0 ? Math.min(...powerMaxCandidates) : null,
+    powerMaxW: powerMaxOf(driver),
   };
 }
 
-/** Problems with the driver record itself (independent of any string). */
-export function checkDriverRecord(driver: LedDriver): Finding[] {
-  const out: Finding[] = [];
-  const bad = (msg: string): void => {
-    out.push(finding('driver-invalid', 'error', `Driver ${driver.id ?? '?'}: ${msg}`, { subject: 'driver' }));
-  };
-  if (driver === null || typeof driver !== 'object') {
-    bad('no driver given.');
-    return out;
+const NO_FINDINGS: readonly Finding[] = Object.freeze([]);
+
+function addInvalid(out: Finding[] | null, driver: LedDriver, msg: string): Finding[] {
+  const list = out ?? [];
+  list.push(finding('driver-invalid', 'error', `Driver ${driver?.id ?? '?'}: ${msg}`, { subject: 'driver' }));
+  return list;
+}
+
+/**
+ * Problems with the driver record itself (independent of any string); every one is an
+ * error. A sound record allocates nothing (the shared empty list comes back).
+ */
+export function checkDriverRecord(driver: LedDriver): readonly Finding[] {
+  if (driver === null || typeof driver !== 'object') return addInvalid(null, driver, 'no driver given.');
+  let out: Finding[] | null = null;
+  if (driver.output !== 'constant-current' && driver.output !== 'constant-voltage') {
+    out = addInvalid(out, driver, 'output must be constant-current or constant-voltage.');
   }
-  if (driver.output !== 'constant-current' && driver.output !== 'constant-voltage') bad('output must be constant-current or constant-voltage.');
   if (driver.output === 'constant-current' && (!Number.isFinite(driver.currentA) || driver.currentA <= 0)) {
-    bad('the output current must be a positive number of amps.');
+    out = addInvalid(out, driver, 'the output current must be a positive number of amps.');
   }
   const vw = driver.voltageWindowV;
   if (vw && !(Number.isFinite(vw.minV) && Number.isFinite(vw.maxV) && vw.minV >= 0 && vw.maxV > vw.minV)) {
-    bad('the voltage window needs a minimum below its maximum.');
+    out = addInvalid(out, driver, 'the voltage window needs a minimum below its maximum.');
   }
   const pw = driver.powerWindowW;
   if (pw && !(Number.isFinite(pw.minW) && Number.isFinite(pw.maxW) && pw.minW >= 0 && pw.maxW > pw.minW)) {
-    bad('the power window needs a minimum below its maximum.');
+    out = addInvalid(out, driver, 'the power window needs a minimum below its maximum.');
   }
-  if (driver.maxPowerW !== undefined && !(Number.isFinite(driver.maxPowerW) && driver.maxPowerW > 0)) bad('maximum power must be positive.');
+  if (driver.maxPowerW !== undefined && !(Number.isFinite(driver.maxPowerW) && driver.maxPowerW > 0)) {
+    out = addInvalid(out, driver, 'maximum power must be positive.');
+  }
   if (driver.efficiency !== undefined && !(Number.isFinite(driver.efficiency) && driver.efficiency > 0 && driver.efficiency <= 1)) {
-    bad('efficiency must be between 0 and 1 (e.g. 0.88).');
+    out = addInvalid(out, driver, 'efficiency must be between 0 and 1 (e.g. 0.88).');
   }
   if (driver.output === 'constant-current' && !vw && !pw) {
+    out ??= [];
     out.push(
       finding('driver-window-missing', 'error', `Driver ${driver.id}: no output voltage or power window is known, so it cannot be checked.`, {
         subject: 'driver',
       }),
     );
   }
-  return out;
+  return out ?? NO_FINDINGS;
 }
 
 /** Evaluate a prepared layout on one driver. */
@@ -328,7 +344,8 @@ export function assembleResult(prepared: PreparedString, e: DriverEvaluation): S
   return result;
 }
 
-function driverIpFindings(prepared: PreparedString, ipCode: string | undefined): Finding[] {
+/** Driver IP findings at the layout's driver location, worked out once per IP code text. */
+export function driverIpFindings(prepared: PreparedString, ipCode: string | undefined): Finding[] {
   const key = ipCode ?? '';
   let hit = prepared.driverIpCache.get(key);
   if (!hit) {
@@ -343,14 +360,138 @@ function driverIpFindings(prepared: PreparedString, ipCode: string | undefined):
   return hit;
 }
 
+/** Verdict bits of `DriverCore.verdicts`: which limit checks a driver fails. */
+export const VERDICT = {
+  voltageBelowWindow: 1,
+  voltageAboveWindow: 2,
+  powerBelowWindow: 4,
+  powerAboveWindow: 8,
+  headroomBelowMargin: 16,
+} as const;
+/** The code profile's k-th ELV limit exceeded sets bit `VERDICT_ELV_BASE << k`. */
+export const VERDICT_ELV_BASE = 32;
+
+/**
+ * Every number behind the verdicts on one driver, without findings or messages. The
+ * evaluation writes its findings from these; driver choice screens whole catalogues with
+ * one reused record (no allocation per driver).
+ */
+export interface DriverCore {
+  /** The record has no `driver-invalid` / `driver-window-missing` problem and is not a constant-voltage supply. */
+  recordOk: boolean;
+  cvSupply: boolean;
+  currentA: number;
+  at: StringAtCurrent;
+  cableLoopResistanceOhm: number;
+  cableDropV: number;
+  complianceVoltageV: number;
+  outputPowerW: number;
+  voltageMinV: number | null;
+  voltageMaxV: number | null;
+  powerMinW: number | null;
+  powerMaxW: number | null;
+  /** Fraction of the nearer maximum (voltage or power) used; null when none is known. */
+  loading: number | null;
+  /** The driver's usable maximum output at this current, W. */
+  upperW: number | null;
+  /** VERDICT bits. */
+  verdicts: number;
+}
+
+/** A fresh record for `fillDriverCore` to write into. */
+export function newDriverCore(prepared: PreparedString): DriverCore {
+  return {
+    recordOk: false,
+    cvSupply: false,
+    currentA: 0,
+    at: stringAtCurrent(prepared, prepared.fittings[0]?.ratings[0]?.currentA ?? 0),
+    cableLoopResistanceOhm: 0,
+    cableDropV: 0,
+    complianceVoltageV: 0,
+    outputPowerW: 0,
+    voltageMinV: null,
+    voltageMaxV: null,
+    powerMinW: null,
+    powerMaxW: null,
+    loading: null,
+    upperW: null,
+    verdicts: 0,
+  };
+}
+
+/** Work out a driver's figures and verdicts on a prepared layout into `core`. */
+export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core: DriverCore): DriverCore {
+  const cvSupply = driver?.output === 'constant-voltage';
+  const recordOk = checkDriverRecord(driver).length === 0 && !cvSupply;
+  const fallbackA = prepared.fittings[0]?.ratings[0]?.currentA ?? 0;
+  const currentA = !cvSupply && Number.isFinite(driver?.currentA) && driver.currentA > 0 ? driver.currentA : fallbackA;
+  const at = stringAtCurrent(prepared, currentA);
+  const cableLoopResistanceOhm = prepared.runsLoopOhm + prepared.tailsLoopOhm;
+  const cableDropV = currentA * cableLoopResistanceOhm;
+  const complianceVoltageV = at.forwardVoltageV + cableDropV;
+  const outputPowerW = complianceVoltageV * currentA;
+  const vw = recordOk ? driver.voltageWindowV : undefined;
+  const voltageMinV = vw ? vw.minV : null;
+  const voltageMaxV = vw ? vw.maxV : null;
+  const powerMinW = recordOk && driver.powerWindowW ? driver.powerWindowW.minW : null;
+  const powerMaxW = recordOk ? powerMaxOf(driver) : null;
+
+  let verdicts = 0;
+  if (recordOk && !cvSupply) {
+    if (voltageMinV !== null && complianceVoltageV < voltageMinV - VOLTAGE_EPSILON_V) verdicts |= VERDICT.voltageBelowWindow;
+    if (voltageMaxV !== null && complianceVoltageV > voltageMaxV + VOLTAGE_EPSILON_V) verdicts |= VERDICT.voltageAboveWindow;
+    if (powerMinW !== null && outputPowerW < powerMinW * (1 - 1e-12) - 1e-12) verdicts |= VERDICT.powerBelowWindow;
+    if (powerMaxW !== null && outputPowerW > powerMaxW * (1 + 1e-12) + 1e-12) verdicts |= VERDICT.powerAboveWindow;
+  }
+  // headroom: the nearer of voltage and power to the driver's maximum
+  let loading: number | null = null;
+  if (!cvSupply && (voltageMaxV !== null || powerMaxW !== null)) {
+    const byV = voltageMaxV !== null ? complianceVoltageV / voltageMaxV : 0;
+    const byP = powerMaxW !== null ? outputPowerW / powerMaxW : 0;
+    loading = Math.max(byV, byP);
+  }
+  if (loading !== null && loading <= 1 + 1e-12 && loading > 1 - prepared.marginPct / 100 + 1e-12) verdicts |= VERDICT.headroomBelowMargin;
+  const limits = prepared.profile.elvLimits;
+  for (let k = 0; k < limits.length; k++) {
+    if (complianceVoltageV > limits[k]!.dcMaxV + VOLTAGE_EPSILON_V) verdicts |= VERDICT_ELV_BASE << k;
+  }
+  core.recordOk = recordOk;
+  core.cvSupply = cvSupply;
+  core.currentA = currentA;
+  core.at = at;
+  core.cableLoopResistanceOhm = cableLoopResistanceOhm;
+  core.cableDropV = cableDropV;
+  core.complianceVoltageV = complianceVoltageV;
+  core.outputPowerW = outputPowerW;
+  core.voltageMinV = voltageMinV;
+  core.voltageMaxV = voltageMaxV;
+  core.powerMinW = powerMinW;
+  core.powerMaxW = powerMaxW;
+  core.loading = loading;
+  core.upperW =
+    voltageMaxV !== null && powerMaxW !== null
+      ? Math.min(voltageMaxV * currentA, powerMaxW)
+      : voltageMaxV !== null
+        ? voltageMaxV * currentA
+        : powerMaxW;
+  core.verdicts = verdicts;
+  return core;
+}
+
+/** Headroom below the driver's maximum, % (null when no maximum is known). */
+export function headroomPctOf(core: DriverCore): number | null {
+  return core.loading === null ? null : (1 - core.loading) * 100;
+}
+
 /**
  * Evaluate and also return the findings that belong to this driver (`own`) apart from the
  * layout's and the current's shared ones, so driver choice can sift many drivers quickly.
  */
 export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver): DriverEvaluation {
+  const core = fillDriverCore(prepared, driver, newDriverCore(prepared));
   const findings: Finding[] = [...checkDriverRecord(driver)];
   const driverWhat = `The driver${driver?.id ? ` (${driver.id})` : ''}`;
-  const cvSupply = driver?.output === 'constant-voltage';
+  const { cvSupply, currentA, at, cableLoopResistanceOhm, cableDropV, complianceVoltageV, outputPowerW, verdicts, loading, upperW } = core;
   if (cvSupply) {
     findings.push(
       finding(
@@ -361,18 +502,10 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
       ),
     );
   }
-  const recordOk = !hasErrors(findings);
-  const fallbackA = prepared.fittings[0]?.ratings[0]?.currentA ?? 0;
-  const currentA = !cvSupply && Number.isFinite(driver?.currentA) && driver.currentA > 0 ? driver.currentA : fallbackA;
-  const at = stringAtCurrent(prepared, currentA);
   findings.push(...driverIpFindings(prepared, driver?.ipCode));
 
-  const cableLoopResistanceOhm = prepared.runsLoopOhm + prepared.tailsLoopOhm;
-  const cableDropV = currentA * cableLoopResistanceOhm;
-  const complianceVoltageV = at.forwardVoltageV + cableDropV;
   const fittingsPowerW = at.forwardVoltageV * currentA;
   const cableLossW = currentA * cableDropV;
-  const outputPowerW = complianceVoltageV * currentA;
   let efficiency = driver?.efficiency ?? ASSUMED_DRIVER_EFFICIENCY;
   if (!(efficiency > 0 && efficiency <= 1)) efficiency = ASSUMED_DRIVER_EFFICIENCY;
   if (driver?.efficiency === undefined) {
@@ -384,92 +517,81 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
   }
   const inputPowerW = outputPowerW / efficiency;
 
-  const lim = recordOk ? driverLimits(driver) : { voltageMinV: null, voltageMaxV: null, powerMinW: null, powerMaxW: null };
   const values = { complianceVoltageV: r2(complianceVoltageV, 3), outputPowerW: r2(outputPowerW, 3) };
-  if (recordOk && !cvSupply) {
-    if (lim.voltageMinV !== null && complianceVoltageV < lim.voltageMinV - VOLTAGE_EPSILON_V) {
-      findings.push(
-        finding(
-          'voltage-below-window',
-          'error',
-          `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} regulates only from ${lim.voltageMinV} V: the fittings may not light or will flicker. Add fittings or choose a driver with a lower window.`,
-          { subject: 'driver', values: { ...values, windowMinV: lim.voltageMinV } },
-        ),
-      );
-    }
-    if (lim.voltageMaxV !== null && complianceVoltageV > lim.voltageMaxV + VOLTAGE_EPSILON_V) {
-      findings.push(
-        finding(
-          'voltage-above-window',
-          'error',
-          `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} reaches only ${lim.voltageMaxV} V: it cannot hold the current and the fittings run dim or flicker. Split the string or choose a higher-voltage driver.`,
-          { subject: 'driver', values: { ...values, windowMaxV: lim.voltageMaxV } },
-        ),
-      );
-    }
-    if (lim.powerMinW !== null && outputPowerW < lim.powerMinW * (1 - 1e-12) - 1e-12) {
-      findings.push(
-        finding(
-          'power-below-window',
-          'error',
-          `The string draws ${r2(outputPowerW)} W, below ${driverWhat.toLowerCase()}'s minimum of ${lim.powerMinW} W.`,
-          { subject: 'driver', values: { ...values, windowMinW: lim.powerMinW } },
-        ),
-      );
-    }
-    if (lim.powerMaxW !== null && outputPowerW > lim.powerMaxW * (1 + 1e-12) + 1e-12) {
-      findings.push(
-        finding(
-          'power-above-window',
-          'error',
-          `The string draws ${r2(outputPowerW)} W, above ${driverWhat.toLowerCase()}'s maximum of ${lim.powerMaxW} W.`,
-          { subject: 'driver', values: { ...values, maxW: lim.powerMaxW } },
-        ),
-      );
-    }
+  if (verdicts & VERDICT.voltageBelowWindow) {
+    findings.push(
+      finding(
+        'voltage-below-window',
+        'error',
+        `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} regulates only from ${core.voltageMinV} V: the fittings may not light or will flicker. Add fittings or choose a driver with a lower window.`,
+        { subject: 'driver', values: { ...values, windowMinV: core.voltageMinV! } },
+      ),
+    );
+  }
+  if (verdicts & VERDICT.voltageAboveWindow) {
+    findings.push(
+      finding(
+        'voltage-above-window',
+        'error',
+        `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} reaches only ${core.voltageMaxV} V: it cannot hold the current and the fittings run dim or flicker. Split the string or choose a higher-voltage driver.`,
+        { subject: 'driver', values: { ...values, windowMaxV: core.voltageMaxV! } },
+      ),
+    );
+  }
+  if (verdicts & VERDICT.powerBelowWindow) {
+    findings.push(
+      finding(
+        'power-below-window',
+        'error',
+        `The string draws ${r2(outputPowerW)} W, below ${driverWhat.toLowerCase()}'s minimum of ${core.powerMinW} W.`,
+        { subject: 'driver', values: { ...values, windowMinW: core.powerMinW! } },
+      ),
+    );
+  }
+  if (verdicts & VERDICT.powerAboveWindow) {
+    findings.push(
+      finding(
+        'power-above-window',
+        'error',
+        `The string draws ${r2(outputPowerW)} W, above ${driverWhat.toLowerCase()}'s maximum of ${core.powerMaxW} W.`,
+        { subject: 'driver', values: { ...values, maxW: core.powerMaxW! } },
+      ),
+    );
   }
 
-  // headroom: the nearer of voltage and power to the driver's maximum
-  let loading: number | null = null;
-  const vMax = lim.voltageMaxV;
-  const pMax = lim.powerMaxW;
-  if (!cvSupply && (vMax !== null || pMax !== null)) {
-    const byV = vMax !== null ? complianceVoltageV / vMax : 0;
-    const byP = pMax !== null ? outputPowerW / pMax : 0;
-    loading = Math.max(byV, byP);
-  }
   const loadingPct = loading === null ? null : loading * 100;
-  const headroomPct = loading === null ? null : (1 - loading) * 100;
-  const upperW = vMax !== null && pMax !== null ? Math.min(vMax * currentA, pMax) : vMax !== null ? vMax * currentA : pMax;
+  const headroomPct = headroomPctOf(core);
   const headroomW = upperW === null || cvSupply ? null : upperW - outputPowerW;
-  if (loading !== null && loading <= 1 + 1e-12 && loading > 1 - prepared.marginPct / 100 + 1e-12) {
+  if (verdicts & VERDICT.headroomBelowMargin) {
+    const l = loading!;
     findings.push(
       finding(
         'headroom-below-margin',
         'warning',
-        `${driverWhat} runs at ${r2(loading * 100, 1)} % of its maximum, leaving ${r2((1 - loading) * 100, 1)} % headroom, under the firm's ${prepared.marginPct} %.`,
-        { subject: 'driver', values: { loadingPct: r2(loading * 100, 2), marginPct: prepared.marginPct } },
+        `${driverWhat} runs at ${r2(l * 100, 1)} % of its maximum, leaving ${r2((1 - l) * 100, 1)} % headroom, under the firm's ${prepared.marginPct} %.`,
+        { subject: 'driver', values: { loadingPct: r2(l * 100, 2), marginPct: prepared.marginPct } },
       ),
     );
   }
   let powerWindowPositionPct: number | null = null;
-  if (!cvSupply && lim.powerMinW !== null && lim.powerMaxW !== null && lim.powerMaxW > lim.powerMinW) {
-    powerWindowPositionPct = ((outputPowerW - lim.powerMinW) / (lim.powerMaxW - lim.powerMinW)) * 100;
-  } else if (!cvSupply && lim.voltageMinV !== null && lim.voltageMaxV !== null) {
-    powerWindowPositionPct = ((complianceVoltageV - lim.voltageMinV) / (lim.voltageMaxV - lim.voltageMinV)) * 100;
+  if (!cvSupply && core.powerMinW !== null && core.powerMaxW !== null && core.powerMaxW > core.powerMinW) {
+    powerWindowPositionPct = ((outputPowerW - core.powerMinW) / (core.powerMaxW - core.powerMinW)) * 100;
+  } else if (!cvSupply && core.voltageMinV !== null && core.voltageMaxV !== null) {
+    powerWindowPositionPct = ((complianceVoltageV - core.voltageMinV) / (core.voltageMaxV - core.voltageMinV)) * 100;
   }
 
-  for (const limit of prepared.profile.elvLimits) {
-    if (complianceVoltageV > limit.dcMaxV + VOLTAGE_EPSILON_V) {
-      findings.push(
-        finding(
-          limit.code,
-          limit.severity,
-          `The string needs ${r2(complianceVoltageV)} V DC, above ${limit.dcMaxV} V DC (${limit.citation}): ${limit.consequence}`,
-          { subject: 'string', values: { complianceVoltageV: r2(complianceVoltageV, 3), limitV: limit.dcMaxV } },
-        ),
-      );
-    }
+  const limits = prepared.profile.elvLimits;
+  for (let k = 0; k < limits.length; k++) {
+    if (!(verdicts & (VERDICT_ELV_BASE << k))) continue;
+    const limit = limits[k]!;
+    findings.push(
+      finding(
+        limit.code,
+        limit.severity,
+        `The string needs ${r2(complianceVoltageV)} V DC, above ${limit.dcMaxV} V DC (${limit.citation}): ${limit.consequence}`,
+        { subject: 'string', values: { complianceVoltageV: r2(complianceVoltageV, 3), limitV: limit.dcMaxV } },
+      ),
+    );
   }
 
   // the largest number of these fittings the driver can take
