@@ -20,6 +20,7 @@ import { quoteBodyParser, quotesRouter } from './modules/quotes/router';
 import { photosRouter } from './modules/photos/router';
 import { quotePdfRouter } from './modules/quote-pdf/router';
 import { quoteSendingRouter } from './modules/quote-sending/router';
+import { circuitsRouter } from './modules/circuits/router';
 
 export interface CreateAppOptions extends AppDeps {
   /** Built front ends to serve; omitted in api-only tests. */
@@ -105,6 +106,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   api.use(photosRouter(deps, routes));
   api.use(quotePdfRouter(deps, routes));
   api.use(quoteSendingRouter(deps, routes));
+  api.use(circuitsRouter(deps, routes));
   api.use('/api', apiNotFound);
   app.use(api);
 

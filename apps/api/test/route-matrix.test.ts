@@ -12,6 +12,7 @@ import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
 import { createCatalogueFixture } from './catalogue-fixtures';
 import { createQuoteMediaFixture } from './image-fixtures';
+import { createCircuitFixture } from './circuit-fixtures';
 
 let t: TestServer;
 let quoteA: string;
@@ -20,6 +21,8 @@ let mediaA: { photoId: string; revisionId: string };
 let mediaB: { photoId: string; revisionId: string };
 let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
+let circuitA: string;
+let circuitB: string;
 beforeAll(async () => {
   t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
   quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
@@ -28,6 +31,8 @@ beforeAll(async () => {
   mediaB = await createQuoteMediaFixture(t.orm.em.fork(), t.firmB.firm.id, quoteB, t.config.dataDir);
   catalogueA = await createCatalogueFixture(t.orm.em.fork(), t.firmA, t.config.dataDir);
   catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
+  circuitA = (await createCircuitFixture(t.orm.em.fork(), t.firmA, quoteA)).circuit.id;
+  circuitB = (await createCircuitFixture(t.orm.em.fork(), t.firmB, quoteB)).circuit.id;
 });
 afterAll(async () => t.close());
 
@@ -60,7 +65,10 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
   if (route.path.startsWith('/api/users/:id'))
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
   if (route.path.startsWith('/api/quotes/:id'))
-    return { own: { id: quoteA, revisionNumber: '1', ...mediaA }, foreign: { id: quoteB, revisionNumber: '1', ...mediaB } };
+    return {
+      own: { id: quoteA, revisionNumber: '1', ...mediaA, circuitId: circuitA },
+      foreign: { id: quoteB, revisionNumber: '1', ...mediaB, circuitId: circuitB },
+    };
   if (route.path.startsWith('/api/customers/:id'))
     return {
       own: { id: catalogueA.customer.id, siteId: catalogueA.site.id },
@@ -151,6 +159,11 @@ describe('route x role x firm matrix', () => {
       'POST /api/quotes/:id/revisions/:revisionId/send': 'owner,estimator',
       'POST /api/quotes/:id/revisions/:revisionId/resend': 'owner,estimator',
       'POST /api/quotes/:id/revisions/:revisionId/revoke': 'owner,estimator',
+      'GET /api/quotes/:id/revisions/:revisionNumber/circuits': 'owner,estimator',
+      'POST /api/quotes/:id/revisions/:revisionNumber/circuits': 'owner,estimator',
+      'PUT /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
+      'DELETE /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
+      'POST /api/quotes/:id/revisions/:revisionNumber/circuit-suggestions': 'owner,estimator',
     });
   });
 
