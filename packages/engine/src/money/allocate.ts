@@ -19,7 +19,8 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
   let total = 0;
   for (let i = 0; i < weights.length; i++) {
     const w = weights[i];
-    assertNonNegativeInteger(w, `weights[${i}]`);
+    // the field name is only built when the weight is wrong (no per-weight garbage)
+    if (typeof w !== 'number' || !Number.isSafeInteger(w) || w < 0) assertNonNegativeInteger(w, `weights[${i}]`);
     total += w;
   }
   if (!Number.isSafeInteger(total)) {
@@ -30,8 +31,8 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
   }
   const negative = amountMinor < 0;
   const amount = Math.abs(amountMinor);
-  const parts: number[] = [];
-  const remainders: number[] = [];
+  const parts = new Array<number>(weights.length);
+  const remainders = new Array<number>(weights.length);
   let given = 0;
   for (let i = 0; i < weights.length; i++) {
     const w = weights[i]!;
@@ -44,8 +45,8 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
     } else {
       ({ quotient, remainder } = mulDivRem(amount, w, total));
     }
-    parts.push(quotient);
-    remainders.push(remainder);
+    parts[i] = quotient;
+    remainders[i] = remainder;
     given += quotient;
   }
   const left = amount - given; // 0 <= left < number of parts with a remainder

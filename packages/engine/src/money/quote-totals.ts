@@ -99,30 +99,28 @@ export interface QuoteTotals {
 
 const isCount = (v: unknown): v is number => typeof v === 'number' && Number.isSafeInteger(v) && v >= 0;
 
-/** Validate a discount or deposit; field names are only built when something is wrong. */
+/** The field name of a discount: a line's (by index) or the quote's own. Built only on error. */
+function discountField(where: string | number): string {
+  return typeof where === 'number' ? `lines[${where}].discount` : where;
+}
+
+/** Validate a discount or deposit (no per-line garbage: messages are built only when something is wrong). */
 function checkDiscount(d: Discount, where: string | number): void {
-  // field names are only built when something is wrong (no per-line garbage)
-  const field = () => (typeof where === 'number' ? `lines[${where}].discount` : where);
   if (typeof d !== 'object' || d === null) {
-    throw new MoneyInputError(
-      'bad-kind',
-      field(),
-      `${field()} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`,
-    );
+    const field = discountField(where);
+    throw new MoneyInputError('bad-kind', field, `${field} must be { kind: "percent", bp } or { kind: "fixed", amountMinor }.`);
   }
   if (d.kind === 'percent') {
-    if (!isCount(d.bp)) assertNonNegativeInteger(d.bp, `${field()}.bp`);
+    if (!isCount(d.bp)) assertNonNegativeInteger(d.bp, `${discountField(where)}.bp`);
     if (d.bp > BASIS_POINTS) {
-      throw new MoneyInputError(
-        'percent-over-100',
-        `${field()}.bp`,
-        `${field()} cannot be more than 100 %; got ${d.bp / 100} %.`,
-      );
+      const field = discountField(where);
+      throw new MoneyInputError('percent-over-100', `${field}.bp`, `${field} cannot be more than 100 %; got ${d.bp / 100} %.`);
     }
   } else if (d.kind === 'fixed') {
-    if (!isCount(d.amountMinor)) assertNonNegativeInteger(d.amountMinor, `${field()}.amountMinor`);
+    if (!isCount(d.amountMinor)) assertNonNegativeInteger(d.amountMinor, `${discountField(where)}.amountMinor`);
   } else {
-    throw new MoneyInputError('bad-kind', `${field()}.kind`, `${field()}.kind must be "percent" or "fixed".`);
+    const field = discountField(where);
+    throw new MoneyInputError('bad-kind', `${field}.kind`, `${field}.kind must be "percent" or "fixed".`);
   }
 }
 
@@ -301,10 +299,9 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       );
     }
     if (quoteDiscountMinor > 0) {
-      const shares = allocateMinor(
-        quoteDiscountMinor,
-        includedIdx.map((i) => out[i]!.netMinor),
-      );
+      const weights = new Array<number>(includedIdx.length);
+      for (let k = 0; k < includedIdx.length; k++) weights[k] = out[includedIdx[k]!]!.netMinor;
+      const shares = allocateMinor(quoteDiscountMinor, weights);
       for (let k = 0; k < includedIdx.length; k++) {
         const t = out[includedIdx[k]!]!;
         t.quoteDiscountMinor = shares[k]!;
@@ -317,16 +314,23 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   const rates = new Map<number, { netMinor: number; vatTenths: number }>();
   let netMinor = 0;
   let costMinor = 0;
-  for (const i of includedIdx) {
-    const t = out[i]!;
-    t.vatTenths = lineVatTenths(t.netMinor, t.vatRateBp, vatRounding);
-    let r = rates.get(t.vatRateBp);
-    if (!r) {
-      r = { netMinor: 0, vatTenths: 0 };
-      rates.set(t.vatRateBp, r);
+  // estimates run long stretches at one rate: look the rate up only when it changes
+  let lastRateBp = -1;
+  let r: { netMinor: number; vatTenths: number } | undefined;
+  for (let k = 0; k < includedIdx.length; k++) {
+    const t = out[includedIdx[k]!]!;
+    const vatTenths = lineVatTenths(t.netMinor, t.vatRateBp, vatRounding);
+    t.vatTenths = vatTenths;
+    if (t.vatRateBp !== lastRateBp || r === undefined) {
+      lastRateBp = t.vatRateBp;
+      r = rates.get(lastRateBp);
+      if (!r) {
+        r = { netMinor: 0, vatTenths: 0 };
+        rates.set(lastRateBp, r);
+      }
     }
     r.netMinor += t.netMinor;
-    r.vatTenths += t.vatTenths ?? 0;
+    if (vatTenths !== null) r.vatTenths += vatTenths;
     netMinor += t.netMinor;
     costMinor += t.costMinor;
   }
