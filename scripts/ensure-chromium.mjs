@@ -8,14 +8,15 @@ const path = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 if (existsSync(path)) process.exit(0);
 
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
-let hasApt = false;
-try {
-  execSync('command -v apt-get', { stdio: 'ignore', shell: '/bin/sh' });
-  hasApt = true;
-} catch {
-  hasApt = false;
+function hasApt() {
+  try {
+    execSync('command -v apt-get', { stdio: 'ignore', shell: '/bin/sh' });
+    return true;
+  } catch {
+    return false;
+  }
 }
-if (!isRoot || !hasApt) {
+if (!isRoot || !hasApt()) {
   console.error(`Chromium not found at ${path}. Install Debian's package (sudo apt-get install chromium) or set CHROMIUM_PATH.`);
   process.exit(1);
 }
