@@ -52,6 +52,11 @@ export const CABLE_METHOD_LABELS: Record<CableMethod, string> = {
   'in-duct': 'In duct',
 };
 
+/** Which wiring rules the checks follow (the engine's code profiles). */
+export const CODE_PROFILE_IDS = ['uk-iec', 'us-nec'] as const;
+export const CodeProfileId = z.enum(CODE_PROFILE_IDS);
+export type CodeProfileId = z.infer<typeof CodeProfileId>;
+
 export const CIRCUIT_KINDS = ['constant-current', 'constant-voltage'] as const;
 export const CircuitKind = z.enum(CIRCUIT_KINDS, 'A circuit is constant-current or constant-voltage.');
 export type CircuitKind = z.infer<typeof CircuitKind>;
@@ -246,7 +251,7 @@ export const CircuitListResponse = z.object({
   products: z.array(Product),
   revision: CircuitRevisionState,
   /** The code profile the checks use for this firm. */
-  profile: z.enum(['uk-iec', 'us-nec']),
+  profile: CodeProfileId,
 });
 export type CircuitListResponse = z.infer<typeof CircuitListResponse>;
 

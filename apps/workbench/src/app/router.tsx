@@ -13,6 +13,8 @@ import { teamQueryOptions } from '../features/team/api/get-team';
 import { quotesQueryOptions } from '../features/quotes/api/list-quotes';
 import { quoteQueryOptions } from '../features/quotes/api/get-quote';
 import { QuoteEditorPage } from '../features/quotes/components/quote-editor-page';
+import { CircuitsPage } from '../features/circuits/components/circuits-page';
+import { circuitsQueryOptions } from '../features/circuits/api/list-circuits';
 import { quotePhotosQueryOptions } from '../features/photos/api/list-photos';
 import { QuotesHome, quoteFiltersFrom } from '../features/quotes/components/quotes-home';
 import { CataloguePage, productQueryFromSearch } from '../features/catalogue/components/catalogue-page';
@@ -77,6 +79,18 @@ export function createRouter(queryClient: QueryClient) {
                 queryClient.prefetchQuery(quoteQueryOptions(params.quoteId)),
                 queryClient.prefetchQuery(quotePhotosQueryOptions(params.quoteId)),
               ]);
+            return null;
+          },
+        },
+        {
+          path: 'quotes/:quoteId/circuits',
+          element: <CircuitsPage />,
+          loader: async ({ request, params }) => {
+            await requireRole(queryClient, request, rolesFor('/quotes'));
+            if (params.quoteId) {
+              const detail = await queryClient.fetchQuery(quoteQueryOptions(params.quoteId));
+              await queryClient.prefetchQuery(circuitsQueryOptions(params.quoteId, detail.revision.number));
+            }
             return null;
           },
         },

@@ -115,6 +115,9 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
           {quote.site ? <p className="text-caption text-ink-muted">{quote.site.addressLines.replace(/\n/g, ', ')} {quote.site.postcode}</p> : null}
         </div>
         <div className="flex items-center gap-3">
+          <Link to={`/quotes/${quote.id}/circuits`} className="text-caption font-semibold text-dusk-700 hover:underline">
+            Circuits
+          </Link>
           <span className="font-mono text-micro text-ink-muted">{lineCount.toLocaleString('en-GB')} lines</span>
           {!readOnly ? (
             <span role="status" aria-live="polite">
