@@ -154,7 +154,16 @@ export function CcCircuitForm({
           </h3>
           <p className="text-caption text-ink-muted">Alt+↑ / Alt+↓ moves the fitting you are on.</p>
         </div>
-        <table className="w-full text-caption">
+        <table className="w-full table-fixed text-caption [&_td_label]:sr-only">
+          <colgroup>
+            <col className="w-8" />
+            <col className="w-[34%]" />
+            <col />
+            <col className="w-[18%]" />
+            <col className="w-20" />
+            <col className="w-16" />
+            <col className="w-28" />
+          </colgroup>
           <thead>
             <tr className="text-left text-ink-muted">
               <th scope="col" className="w-8 py-1">

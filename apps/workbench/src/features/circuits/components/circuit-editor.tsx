@@ -228,28 +228,28 @@ export function CircuitEditor({
         </fieldset>
         <div className="flex min-w-0 flex-col gap-6">
           <CircuitResults evaluation={live} general={general} onAcknowledge={onAcknowledge ?? (() => {})} />
-          {live.blocks && live.blocks.blocks.length > 0 ? (
-            <section aria-label="Wiring" className="flex flex-col gap-4">
-              <h3 className="text-lead font-semibold text-ink">Wiring</h3>
-              <div className="overflow-x-auto rounded-card bg-surface p-2 ring-1 ring-line">
-                <StringDiagram
-                  plan={live.blocks}
-                  driverName={
-                    pool.find((p) => p.id === (design.kind === 'constant-current' ? design.driverProductId : null))?.name ??
-                    'not chosen'
-                  }
-                />
-              </div>
-              <p className="text-caption text-ink-muted">
-                {live.wiring?.ok
-                  ? '✓ The wiring check passes: one series loop, every fitting the right way round.'
-                  : '✕ The wiring check found problems (listed with the results).'}
-              </p>
-              <TerminalSchedule plan={live.blocks} />
-            </section>
-          ) : null}
         </div>
       </div>
+      {live.blocks && live.blocks.blocks.length > 0 ? (
+        <section aria-label="Wiring" className="flex flex-col gap-4">
+          <h3 className="text-lead font-semibold text-ink">Wiring</h3>
+          <div className="overflow-x-auto rounded-card bg-surface p-2 ring-1 ring-line">
+            <StringDiagram
+              plan={live.blocks}
+              driverName={
+                pool.find((p) => p.id === (design.kind === 'constant-current' ? design.driverProductId : null))?.name ??
+                'not chosen'
+              }
+            />
+          </div>
+          <p className="text-caption text-ink-muted">
+            {live.wiring?.ok
+              ? '✓ The wiring check passes: one series loop, every fitting the right way round.'
+              : '✕ The wiring check found problems (listed with the results).'}
+          </p>
+          <TerminalSchedule plan={live.blocks} />
+        </section>
+      ) : null}
     </article>
   );
 }

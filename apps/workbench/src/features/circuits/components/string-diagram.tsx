@@ -31,8 +31,9 @@ export function StringDiagram({ plan, driverName }: { plan: BlockPlan; driverNam
       role="img"
       aria-labelledby="string-diagram-title"
       viewBox={`0 0 ${width} ${height}`}
-      className="h-auto w-full max-w-full text-ink"
-      style={{ minWidth: Math.min(width, 640) }}
+      width={width}
+      height={height}
+      className="max-w-none text-ink"
     >
       <title id="string-diagram-title">
         {`Wiring diagram: ${driverName} feeds ${plan.fittingLabels.length} fittings in series over ${plan.blocks.length} connector block${plan.blocks.length === 1 ? '' : 's'}; the return leg runs back to the driver's negative.`}
@@ -140,8 +141,8 @@ export function StringDiagram({ plan, driverName }: { plan: BlockPlan; driverNam
           </g>
         );
       })}
-      <text x={lastX} y={RET_Y + 24} textAnchor="end" fontSize="9" fill="currentColor">
-        last fitting − returns to the driver −
+      <text x={lastX} y={height - 6} textAnchor="end" fontSize="9" fill="currentColor">
+        The last fitting’s − returns along the dashed leg to the driver’s −
       </text>
     </svg>
   );

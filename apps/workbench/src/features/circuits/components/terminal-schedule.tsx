@@ -9,7 +9,7 @@ function endText(end: string, labels: readonly string[]): string {
 export function TerminalSchedule({ plan }: { plan: BlockPlan }) {
   if (plan.blocks.length === 0) return null;
   return (
-    <div className="flex flex-col gap-5">
+    <div className="grid gap-6 xl:grid-cols-2">
       {plan.blocks.map((block) => (
         <div key={block.number}>
           <table className="w-full text-caption" aria-label={`Terminal schedule, block ${block.number}`}>
