@@ -16,6 +16,7 @@ import {
   type CircuitDesign,
   type EstimateLine,
 } from '@gloaming/contracts';
+import { Product } from '@gloaming/db';
 import { computeQuoteTotals, evaluateCircuit } from '@gloaming/engine';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
@@ -129,14 +130,12 @@ describe('circuits of a quote revision', () => {
     const put = await estimator.put(`/api/quotes/${quoteA}/revisions/1`).send({ version: detail.revision.version, content });
     expect(put.status).toBe(200);
 
-    const res = await estimator
-      .put(`${circuitsUrl(quoteA)}/${circuitId}`)
-      .send({
-        version: circuitVersion,
-        area: 'Front path',
-        name: 'Path string',
-        design: sixSpikeDesign(pA, { driverLead: { cableProductId: pA.cable.id, lengthM: 20, method: 'buried-trench' } }),
-      });
+    const res = await estimator.put(`${circuitsUrl(quoteA)}/${circuitId}`).send({
+      version: circuitVersion,
+      area: 'Front path',
+      name: 'Path string',
+      design: sixSpikeDesign(pA, { driverLead: { cableProductId: pA.cable.id, lengthM: 20, method: 'buried-trench' } }),
+    });
     expect(res.status).toBe(200);
     const saved = CircuitSaveResponse.parse(res.body);
     circuitVersion = saved.circuit.version;
@@ -204,12 +203,10 @@ describe('circuits of a quote revision', () => {
     expect(dup.status).toBe(400);
     expect((dup.body.errors as { path: string }[]).map((e) => e.path)).toContain('body.design.fittings.1.id');
 
-    const huge = await estimator
-      .post(circuitsUrl(quoteA))
-      .send({
-        area: 'Pond',
-        design: { ...design, driverLead: { cableProductId: pA.cable.id, lengthM: 1e9, method: 'in-duct' } },
-      });
+    const huge = await estimator.post(circuitsUrl(quoteA)).send({
+      area: 'Pond',
+      design: { ...design, driverLead: { cableProductId: pA.cable.id, lengthM: 1e9, method: 'in-duct' } },
+    });
     expect(huge.status).toBe(400);
     expect((huge.body.errors as { path: string }[]).map((e) => e.path)).toContain('body.design.driverLead.lengthM');
   });
@@ -250,6 +247,69 @@ describe('circuits of a quote revision', () => {
     expect(after.quote.valueMinor).toBe(
       computeQuoteTotals(estimateQuoteInput(after.revision.content, after.revision.settings)).totalMinor,
     );
+  });
+
+  it('checks a constant-voltage daisy chain on save: the voltage at each fitting', async () => {
+    const em = t.orm.em.fork();
+    const supply = em.create(Product, {
+      organization: t.firmA.firm.id,
+      kind: 'cv-supply',
+      supplier: 'Owlbrook Trade',
+      supplierCode: 'OW-P60',
+      name: 'Moss 12 V 60 W supply',
+      costMinor: 2000,
+      listPriceMinor: 3500,
+      spec: { outputVoltageV: 12, ratedPowerW: 60, ipCode: 'IP67' },
+    });
+    const deck = em.create(Product, {
+      organization: t.firmA.firm.id,
+      kind: 'fitting',
+      supplier: 'Owlbrook Trade',
+      supplierCode: 'OW-DK6',
+      name: 'Deck glow 6 W',
+      costMinor: 900,
+      listPriceMinor: 1800,
+      spec: { driveMode: 'constant-voltage', nominalVoltageV: 12, powerW: 6, ipCode: 'IP67' },
+    });
+    await em.flush();
+    const design: CircuitDesign = {
+      kind: 'constant-voltage',
+      supplyProductId: supply.id,
+      supplyLocation: 'driver-outdoors',
+      runs: [
+        {
+          id: 'deck',
+          label: 'Deck edge',
+          layout: 'daisy-chain',
+          cableProductId: pA.cable.id,
+          method: 'surface-clipped',
+          feederLengthM: 0,
+          fittings: ['a', 'b', 'c', 'd'].map((id) => ({
+            id,
+            productId: deck.id,
+            label: '',
+            location: 'under-decking' as const,
+            spanLengthM: 5,
+          })),
+        },
+      ],
+      acknowledgements: [],
+    };
+    const res = await estimator.post(circuitsUrl(quoteA)).send({ area: 'Deck', name: 'Deck edge', design });
+    expect(res.status).toBe(201);
+    const saved = CircuitSaveResponse.parse(res.body);
+    const cv = (saved.circuit.result.evaluation as { cv: { loadW: number; runs: { fittings: { voltageV: number }[] }[] } }).cv;
+    // 6 W / 12 V = 0.5 A each; each 5 m span's loop 2 x 5 m x 13.3 ohm/km x 1.1965 (IEC 60228 Table 3, 70 °C derived);
+    // a daisy-chain segment carries every load beyond it (REFERENCES, voltage drop, derived)
+    const r = 2 * 5 * 0.0133 * 1.1965;
+    const expected = [2, 1.5, 1, 0.5].reduce<number[]>((vs, amps) => [...vs, (vs.at(-1) ?? 12) - amps * r], []);
+    cv.runs[0]!.fittings.forEach((f, i) => expect(f.voltageV).toBeCloseTo(expected[i]!, 6));
+    expect(cv.loadW).toBeCloseTo(24, 9);
+    const lines = derivedLines(await quoteDetail(), saved.circuit.id);
+    // four 5 m spans = 20 m + 10 % = 22 m of cable; four fittings and the supply
+    expect(lines.find((l) => l.productId === pA.cable.id)?.quantityMilli).toBe(22_000);
+    expect(lines.find((l) => l.productId === deck.id)?.quantityMilli).toBe(4000);
+    expect(lines.find((l) => l.productId === supply.id)?.quantityMilli).toBe(1000);
   });
 
   it('refuses to change the circuits of a sent revision', async () => {
