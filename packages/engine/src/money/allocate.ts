@@ -11,7 +11,7 @@ import { assertNonNegativeInteger, assertSafeInteger, MoneyInputError, mulDivRem
  * at least one positive; e.g. basis points or line amounts). Returns one part per weight,
  * each with the sign of the amount; a zero weight always gets zero.
  */
-export function allocateMinor(amountMinor: number, weights: readonly number[]): number[] {
+export function allocateMinor(amountMinor: number, weights: ArrayLike<number>): number[] {
   assertSafeInteger(amountMinor, 'amountMinor');
   if (weights.length === 0) {
     throw new MoneyInputError('no-weights', 'weights', 'Cannot split an amount across no parts.');
@@ -32,7 +32,7 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
   const negative = amountMinor < 0;
   const amount = Math.abs(amountMinor);
   const parts = new Array<number>(weights.length);
-  const remainders = new Array<number>(weights.length);
+  const remainders = new Float64Array(weights.length); // exact: remainders are safe integers
   let given = 0;
   for (let i = 0; i < weights.length; i++) {
     const w = weights[i]!;
@@ -41,7 +41,7 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
     let remainder: number;
     if (Number.isSafeInteger(p)) {
       remainder = p % total;
-      quotient = (p - remainder) / total;
+      quotient = Math.trunc((p - remainder) / total); // exact; trunc keeps it a small integer (see integer-math)
     } else {
       ({ quotient, remainder } = mulDivRem(amount, w, total));
     }
@@ -59,7 +59,7 @@ export function allocateMinor(amountMinor: number, weights: readonly number[]): 
  * part. Finds the threshold (the left-th largest remainder) by selection in linear time,
  * then hands out in one pass in index order.
  */
-function giveLeftovers(parts: number[], remainders: readonly number[], left: number): void {
+function giveLeftovers(parts: number[], remainders: Float64Array, left: number): void {
   const n = remainders.length;
   const work = remainders.slice();
   const threshold = kthSmallest(work, n - left);
@@ -81,7 +81,7 @@ function giveLeftovers(parts: number[], remainders: readonly number[], left: num
  * median-of-three pivot; after too many rounds it falls back to a full sort, so the worst
  * case stays O(n log n).
  */
-function kthSmallest(a: number[], k: number): number {
+function kthSmallest(a: Float64Array, k: number): number {
   let lo = 0;
   let hi = a.length - 1;
   let rounds = 0;

@@ -3,6 +3,11 @@
  * (|x| <= Number.MAX_SAFE_INTEGER = 9,007,199,254,740,991), never fractions. Products that
  * would leave the safe range are redone with bigint, so every intermediate is exact; only a
  * final result that does not fit a safe integer is refused (about £90 trillion in pence).
+ *
+ * Exact quotients are passed through Math.trunc, which changes no value (they are whole
+ * already) but gives V8 a small integer rather than a boxed double when one fits: results
+ * stored in objects and arrays then stay unboxed, which saves an allocation per amount on
+ * every line of a quote.
  */
 
 import { EngineInputError } from '../units/engine-input-error';
@@ -111,7 +116,7 @@ export function divRound(n: number, d: number, mode: IntegerRounding): number {
   assertSafeInteger(d, 'divisor');
   if (d <= 0) throw new MoneyInputError('bad-divisor', 'divisor', `divisor must be positive; got ${d}.`);
   const r = n % d; // exact for safe integers, takes the sign of n
-  const q = (n - r) / d; // exact: n - r is a multiple of d
+  const q = Math.trunc((n - r) / d); // exact: n - r is a multiple of d (trunc: see the note at the top)
   const absR = Math.abs(r);
   return roundQuotient(q, absR, d - absR, n < 0, mode) + 0;
 }
@@ -143,7 +148,7 @@ export function mulDivRem(a: number, b: number, d: number): { quotient: number; 
   const p = a * b;
   if (Number.isSafeInteger(p) && Number.isSafeInteger(d) && d > 0) {
     const r = p % d;
-    return { quotient: (p - r) / d + 0, remainder: r + 0 };
+    return { quotient: Math.trunc((p - r) / d) + 0, remainder: r + 0 };
   }
   assertSafeInteger(a, 'factor');
   assertSafeInteger(b, 'factor');

@@ -70,7 +70,7 @@ export function extendMinor(quantityMilliValue: number, unitPriceMinor: number, 
   if (mode === 'half-up' && p >= 0 && Number.isSafeInteger(p)) {
     // fast path for the common case: non-negative, exact in a double
     const r = p % QUANTITY_SCALE;
-    return (p - r) / QUANTITY_SCALE + (r >= QUANTITY_SCALE / 2 ? 1 : 0);
+    return Math.trunc((p - r) / QUANTITY_SCALE) + (r >= QUANTITY_SCALE / 2 ? 1 : 0); // trunc: see integer-math
   }
   return mulDiv(quantityMilliValue, unitPriceMinor, QUANTITY_SCALE, mode);
 }

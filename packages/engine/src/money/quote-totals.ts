@@ -151,7 +151,17 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   const ids = new Set<string>();
   const groups = new Map<string, number[]>();
   const out: QuoteLineTotal[] = [];
+  // Sums of the included lines before the quote discount, gathered in the same pass (one
+  // pass over 5,000 lines keeps them in cache; a second would read them all back in).
+  // (typed arrays sized once: no growth garbage)
+  const includedIdx = new Int32Array(n);
+  /** Their nets before the quote discount: the weights its shares go by. */
+  const includedNet = new Float64Array(n);
+  let includedCount = 0;
   let missingCost = 0;
+  let grossSum = 0;
+  let lineDiscountSum = 0;
+  let preQuoteNet = 0;
 
   for (let i = 0; i < n; i++) {
     const line = lines[i]!;
@@ -220,6 +230,15 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     } else if (line.optional) {
       included = line.selected === true;
     }
+    if (included) {
+      includedIdx[includedCount] = i;
+      includedNet[includedCount] = netMinor;
+      includedCount++;
+      if (line.unitCostMinor === undefined) missingCost++;
+      grossSum += grossMinor;
+      lineDiscountSum += lineDiscountMinor;
+      preQuoteNet += netMinor;
+    }
     out.push({
       id: line.id,
       included,
@@ -234,6 +253,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     });
   }
 
+  let excludedLater = false;
   for (const [group, members] of groups) {
     const chosen = members.filter((i) => out[i]!.included);
     if (chosen.length === 0) {
@@ -250,6 +270,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       );
     } else if (chosen.length > 1) {
       for (const i of chosen.slice(1)) out[i]!.included = false;
+      excludedLater = true;
       findings.push(
         finding(
           'alternative-several-chosen',
@@ -264,25 +285,32 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     }
   }
 
-  // Sums of the included lines before the quote discount.
-  let grossSum = 0;
-  let lineDiscountSum = 0;
-  let preQuoteNet = 0;
-  const includedIdx: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const t = out[i]!;
-    if (!t.included) continue;
-    includedIdx.push(i);
-    if (lines[i]!.unitCostMinor === undefined) missingCost++;
-    grossSum += t.grossMinor;
-    lineDiscountSum += t.lineDiscountMinor;
-    preQuoteNet += t.netMinor;
+  if (excludedLater) {
+    // a pick-one group had several chosen: sum again over the lines still counted (rare)
+    includedCount = 0;
+    missingCost = 0;
+    grossSum = 0;
+    lineDiscountSum = 0;
+    preQuoteNet = 0;
+    for (let i = 0; i < n; i++) {
+      const t = out[i]!;
+      if (!t.included) continue;
+      includedIdx[includedCount] = i;
+      includedNet[includedCount] = t.netMinor;
+      includedCount++;
+      if (lines[i]!.unitCostMinor === undefined) missingCost++;
+      grossSum += t.grossMinor;
+      lineDiscountSum += t.lineDiscountMinor;
+      preQuoteNet += t.netMinor;
+    }
   }
   if (!Number.isSafeInteger(grossSum)) {
     throw new MoneyInputError('result-out-of-range', 'lines', 'The quote adds up to more than can be held exactly.');
   }
 
   let quoteDiscountMinor = 0;
+  /** Each included line's share of the quote discount, in includedIdx order; null when none. */
+  let shares: number[] | null = null;
   if (input.discount) {
     quoteDiscountMinor = takeFrom(preQuoteNet, input.discount);
     if (capped(preQuoteNet, input.discount)) {
@@ -299,15 +327,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       );
     }
     if (quoteDiscountMinor > 0) {
-      const weights = new Array<number>(includedIdx.length);
-      for (let k = 0; k < includedIdx.length; k++) weights[k] = out[includedIdx[k]!]!.netMinor;
-      const shares = allocateMinor(quoteDiscountMinor, weights);
-      for (let k = 0; k < includedIdx.length; k++) {
-        const t = out[includedIdx[k]!]!;
-        t.quoteDiscountMinor = shares[k]!;
-        t.netMinor -= shares[k]!;
-        t.marginMinor = t.netMinor - t.costMinor;
-      }
+      shares = allocateMinor(quoteDiscountMinor, includedNet.subarray(0, includedCount));
     }
   }
 
@@ -317,8 +337,14 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   // estimates run long stretches at one rate: look the rate up only when it changes
   let lastRateBp = -1;
   let r: { netMinor: number; vatTenths: number } | undefined;
-  for (let k = 0; k < includedIdx.length; k++) {
+  for (let k = 0; k < includedCount; k++) {
     const t = out[includedIdx[k]!]!;
+    if (shares !== null) {
+      const share = shares[k]!;
+      t.quoteDiscountMinor = share;
+      t.netMinor -= share;
+      t.marginMinor = t.netMinor - t.costMinor;
+    }
     const vatTenths = lineVatTenths(t.netMinor, t.vatRateBp, vatRounding);
     t.vatTenths = vatTenths;
     if (t.vatRateBp !== lastRateBp || r === undefined) {
