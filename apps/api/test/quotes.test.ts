@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
@@ -12,6 +13,7 @@ import {
 } from '@gloaming/contracts';
 import { Quote, QuoteRevision } from '@gloaming/db';
 import { computeQuoteTotals } from '@gloaming/engine';
+import { canonicalJson } from '../src/modules/quotes/canonical-json';
 import { loadQuoteForFirm, loadRevision, markRevisionSent } from '../src/modules/quotes/service';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
@@ -233,6 +235,10 @@ describe('revisions and events', () => {
     const q = await loadQuoteForFirm(em, t.firmA.firm.id, quote.id);
     await markRevisionSent(em, q, await loadRevision(em, q, 1), { id: t.firmA.users.estimator.id });
     await em.flush();
+    // The hash is of the canonical JSON (keys sorted), not of the stored key order.
+    const frozen = await t.orm.em.fork().findOneOrFail(QuoteRevision, { quote: quote.id, number: 1 });
+    expect(frozen.contentHash).toBe(createHash('sha256').update(canonicalJson(doc)).digest('hex'));
+    expect(frozen.contentHash).not.toBe(createHash('sha256').update(JSON.stringify(frozen.content)).digest('hex'));
 
     const sent = QuoteDetailResponse.parse((await estimator.get(`/api/quotes/${quote.id}`)).body);
     expect(sent.quote.status).toBe('sent');

@@ -95,6 +95,15 @@ export const RevisionSettings = z.object({
   labourRateMinorPerHour: Minor,
   quoteValidityDays: z.number().int().min(1).max(365),
   termsText: ShortText(20_000),
+  /**
+   * Set when the revision is sent: the photos it shows, in order, with the captions they had.
+   * The PDF of a sent revision prints these (a photo a sent revision shows cannot be deleted).
+   * Absent on drafts, which show the quote's photos as they are.
+   */
+  sentPhotos: z
+    .array(z.object({ photoId: z.string().min(1).max(64), caption: z.string().max(300) }))
+    .max(200)
+    .optional(),
 });
 export type RevisionSettings = z.infer<typeof RevisionSettings>;
 

@@ -103,7 +103,7 @@ export function photosRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { params: QuotePhotoParams },
       handler: async ({ res, em, input, auth }) => {
         const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
-        await deleteQuotePhoto(em, storage, await findQuotePhoto(em, quote, input.params.photoId));
+        await deleteQuotePhoto(em, storage, quote, await findQuotePhoto(em, quote, input.params.photoId));
         res.status(204).end();
       },
     }),

@@ -5,10 +5,11 @@ import {
   PHOTO_MAX_PER_QUOTE,
   PHOTO_UPLOAD_FIELD,
   PhotoUploadFields,
+  RevisionSettings,
   type ReorderPhotosRequest,
   type UpdatePhotoRequest,
 } from '@gloaming/contracts';
-import { Photo, type EntityManager, type Quote } from '@gloaming/db';
+import { Photo, QuoteRevision, type EntityManager, type Quote } from '@gloaming/db';
 import { badRequest, conflict, HttpError, notFound } from '../../http/problem';
 import { newStorageKey, type FileStorage } from '../../storage/storage';
 import { checkImage, makeThumbnail } from './image-intake';
@@ -126,7 +127,28 @@ export async function reorderQuotePhotos(em: EntityManager, quote: Quote, order:
   return listQuotePhotos(em, quote);
 }
 
-export async function deleteQuotePhoto(em: EntityManager, storage: FileStorage, photo: Photo): Promise<void> {
+/** The numbers of the sent (or superseded) revisions of the quote that show this photo. */
+async function sentRevisionsShowing(em: EntityManager, quote: Quote, photo: Photo): Promise<number[]> {
+  const frozen = await em.find(
+    QuoteRevision,
+    { quote: quote.id, organization: quote.organization.id, state: { $ne: 'draft' } },
+    { orderBy: { number: 'asc' } },
+  );
+  return frozen
+    .filter((r) => RevisionSettings.safeParse(r.settings).data?.sentPhotos?.some((f) => f.photoId === photo.id))
+    .map((r) => r.number);
+}
+
+/**
+ * Remove a photo and its files. A photo that a sent revision shows is refused (409): that
+ * revision's PDF must keep showing what the homeowner was sent. Untick "on quote" instead.
+ */
+export async function deleteQuotePhoto(em: EntityManager, storage: FileStorage, quote: Quote, photo: Photo): Promise<void> {
+  const sent = await sentRevisionsShowing(em, quote, photo);
+  if (sent.length > 0)
+    throw conflict(
+      `This photo is in revision${sent.length > 1 ? 's' : ''} ${sent.join(', ')} as sent to the customer, so it is kept for that quotation. Untick “on quote” to leave it off later revisions.`,
+    );
   const keys = [photo.storageKey, photo.thumbnailKey];
   em.remove(photo);
   await em.flush();

@@ -55,6 +55,29 @@ export function priceForCustomer(content: EstimateContent, settings: RevisionSet
   }
 }
 
+/**
+ * The photos a revision shows: once sent, the ones frozen in its settings (in that order, with
+ * those captions); a draft shows the quote's photos chosen for the quote, as they are now.
+ */
+async function photosShown(
+  em: EntityManager,
+  quote: Quote,
+  settings: RevisionSettings,
+): Promise<{ photo: Photo; caption: string }[]> {
+  if (settings.sentPhotos) {
+    const ids = settings.sentPhotos.map((f) => f.photoId);
+    const found = new Map(
+      (await em.find(Photo, { id: { $in: ids }, quote: quote.id, organization: quote.organization.id })).map((p) => [p.id, p]),
+    );
+    return settings.sentPhotos.flatMap((f) => {
+      const photo = found.get(f.photoId);
+      return photo ? [{ photo, caption: f.caption }] : [];
+    });
+  }
+  const chosen = await em.find(Photo, { quote: quote.id, onQuote: true }, { orderBy: { position: 'asc', createdAt: 'asc' } });
+  return chosen.map((photo) => ({ photo, caption: photo.caption }));
+}
+
 export interface PdfDates {
   /** The date printed as issued; defaults to when the revision was sent, else now. */
   issuedOn?: Date;
@@ -137,12 +160,11 @@ export async function buildQuotePdfModel(
     .join(' ');
 
   const photos: PdfPhoto[] = [];
-  const chosen = await em.find(Photo, { quote, onQuote: true }, { orderBy: { position: 'asc', createdAt: 'asc' } });
-  for (const p of chosen) {
+  for (const { photo: p, caption } of await photosShown(em, quote, settings)) {
     try {
       const jpeg = await storage.get(p.thumbnailKey);
       const scale = Math.min(1, THUMBNAIL_EDGE / Math.max(p.width, p.height));
-      photos.push({ caption: p.caption, jpeg, width: Math.round(p.width * scale), height: Math.round(p.height * scale) });
+      photos.push({ caption, jpeg, width: Math.round(p.width * scale), height: Math.round(p.height * scale) });
     } catch {
       // a missing file should not stop the quote going out; the photo is simply left off
     }

@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import {
   estimateQuoteInput,
   formatQuoteNumber,
@@ -22,7 +21,6 @@ import { conflict, HttpError } from '../../http/problem';
 import { buildQuotePdfModel, priceForCustomer, validUntilFor } from '../quote-pdf/build-pdf-model';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
 import { appendQuoteEvent, markRevisionSent, revisionContent, revisionSettings, type Actor } from '../quotes/service';
-import { canonicalJson } from './canonical-json';
 import { quoteMail, quotePdfFileName } from './quote-mail';
 
 export interface SendBlocker {
@@ -170,32 +168,30 @@ async function deliver(
     throw refuse([
       { code: 'customer-without-email', message: 'The customer has no e-mail address. Add one, or type the address to send to.' },
     ]);
+  // Token, freeze and event are only persisted here; the flush below writes them inside the
+  // transaction, so a refused e-mail leaves nothing behind.
+  const portalToken = em.create(PortalToken, {
+    organization: quote.organization,
+    revision,
+    tokenHash: hashToken(token),
+    sentTo: to,
+    expiresAt: validUntil,
+    revokedAt: null,
+  });
+  const who: Actor = { id: actor.id };
+  const data = { to, linkId: portalToken.id, expiresAt: validUntil.toISOString() };
+  if (kind === 'sent') {
+    // freezes the content hash and the photos first, so the attached PDF shows the frozen ones
+    await markRevisionSent(em, quote, revision, who, data, now);
+    quote.valueMinor = mail.totalMinor;
+  } else {
+    appendQuoteEvent(em, quote, 'resent', who, { revisionNumber: revision.number, ...data }, revision);
+  }
   const model = await buildQuotePdfModel(em, deps.storage, quote, revision, { issuedOn: revision.sentAt ?? now, validUntil });
   const pdf = await sharedPdfRenderer().render(model);
 
   await em.begin();
   try {
-    const portalToken = em.create(PortalToken, {
-      organization: quote.organization,
-      revision,
-      tokenHash: hashToken(token),
-      sentTo: to,
-      expiresAt: validUntil,
-      revokedAt: null,
-    });
-    const who: Actor = { id: actor.id };
-    const data = { to, linkId: portalToken.id, expiresAt: validUntil.toISOString() };
-    if (kind === 'sent') {
-      await markRevisionSent(em, quote, revision, who, data);
-      // the hash of the canonical JSON, so equal content always hashes equal
-      revision.contentHash = createHash('sha256').update(canonicalJson(revision.content)).digest('hex');
-      revision.sentAt = now;
-      quote.sentAt = now;
-      quote.validUntil = validUntil;
-      quote.valueMinor = mail.totalMinor;
-    } else {
-      appendQuoteEvent(em, quote, 'resent', who, { revisionNumber: revision.number, ...data }, revision);
-    }
     await em.flush();
     try {
       await deps.mailer.send({

@@ -1,3 +1,5 @@
+import { createHash } from 'node:crypto';
+
 /**
  * Canonical JSON for hashing a frozen estimate: object keys sorted, no whitespace, arrays in
  * order. The same content always gives the same bytes, whatever order the keys were stored in.
@@ -12,4 +14,9 @@ export function canonicalJson(value: unknown): string {
     .filter(([, v]) => v !== undefined)
     .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
   return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+}
+
+/** SHA-256 (hex) of the canonical JSON: the one content hash a sent revision keeps. */
+export function contentHash(value: unknown): string {
+  return createHash('sha256').update(canonicalJson(value)).digest('hex');
 }

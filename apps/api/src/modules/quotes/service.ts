@@ -9,9 +9,8 @@
  * - revisionContent(revision) / revisionSettings(revision)   the JSON parsed with the contracts
  * - priceRevision(content, settings)             the engine's totals for a document
  * - appendQuoteEvent(em, quote, type, actor, data?, revision?)  history + status (persisted, not flushed)
- * - markRevisionSent(em, quote, revision, actor) freeze a draft when it is sent (async; persisted, not flushed)
+ * - markRevisionSent(em, quote, revision, actor, data?, now?) freeze a draft when it is sent (async; persisted, not flushed)
  */
-import { createHash } from 'node:crypto';
 import {
   EstimateContent,
   RevisionSettings,
@@ -24,6 +23,7 @@ import {
 import {
   Customer,
   Organization,
+  Photo,
   Quote,
   QuoteEvent,
   QuoteRevision,
@@ -35,6 +35,7 @@ import {
 } from '@gloaming/db';
 import { computeQuoteTotals, isEngineInputError, type QuoteTotals } from '@gloaming/engine';
 import { badRequest, conflict, notFound } from '../../http/problem';
+import { contentHash } from './canonical-json';
 
 export type Actor = { id: string } | null;
 
@@ -174,9 +175,11 @@ export function appendQuoteEvent(
 }
 
 /**
- * Freeze a draft revision when it is sent: state `sent`, the SHA-256 of its content, the quote's
- * sent date and validity from the revision's settings, and a `sent` event; an earlier sent
- * revision becomes `superseded`. Refuses anything but a draft. Persisted, not flushed.
+ * Freeze a draft revision when it is sent: state `sent`, the SHA-256 of its canonical JSON
+ * content, the photos it shows (ids, order and captions, kept in its settings so the PDF of a
+ * sent revision always shows what was sent), the quote's sent date and validity from the
+ * revision's settings, and a `sent` event; an earlier sent revision becomes `superseded`.
+ * Refuses anything but a draft. Persisted, not flushed.
  */
 export async function markRevisionSent(
   em: EntityManager,
@@ -184,14 +187,21 @@ export async function markRevisionSent(
   revision: QuoteRevision,
   actor: Actor,
   data: Record<string, unknown> = {},
+  now: Date = new Date(),
 ): Promise<QuoteEvent> {
   if (revision.state !== 'draft') throw conflict(`Revision ${revision.number} has already been sent; revise the quote to change it.`);
   for (const earlier of await em.find(QuoteRevision, { quote: quote.id, state: 'sent' })) earlier.state = 'superseded';
   const settings = revisionSettings(revision);
-  const now = new Date();
+  const shown = await em.find(
+    Photo,
+    { quote: quote.id, organization: quote.organization.id, onQuote: true },
+    { orderBy: { position: 'asc', createdAt: 'asc' } },
+  );
+  const frozen: RevisionSettings = { ...settings, sentPhotos: shown.map((p) => ({ photoId: p.id, caption: p.caption })) };
+  revision.settings = frozen;
   revision.state = 'sent';
   revision.sentAt = now;
-  revision.contentHash = createHash('sha256').update(JSON.stringify(revision.content)).digest('hex');
+  revision.contentHash = contentHash(revision.content);
   quote.sentAt = now;
   quote.validUntil = new Date(now.getTime() + settings.quoteValidityDays * 24 * 3600_000);
   return appendQuoteEvent(em, quote, 'sent', actor, { revisionNumber: revision.number, ...data }, revision);
