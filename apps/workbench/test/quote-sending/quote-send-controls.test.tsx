@@ -29,7 +29,7 @@ const preview = (extra: Partial<SendPreviewResponse> = {}): SendPreviewResponse 
 
 describe('QuoteSendControls', () => {
   it('links the PDF of the revision and sends with the prefilled recipient and a note, saving first', async () => {
-    const beforeSend = vi.fn(async () => undefined);
+    const beforeSend = vi.fn(async () => ({ ok: true }) as const);
     const { sent } = stubFetch((r) => {
       if (r.url.includes('/send-preview')) return json(200, preview());
       if (r.url.endsWith('/send'))
@@ -60,6 +60,26 @@ describe('QuoteSendControls', () => {
       to: 'ottilie@brackenbury.example',
       message: 'Thank you for Thursday.',
     });
+  });
+
+  it('sends nothing when the latest edits could not be saved, and says why', async () => {
+    const beforeSend = vi.fn(async () => ({ ok: false, detail: 'Someone else saved this quote after you opened it.' }) as const);
+    const { sent } = stubFetch((r) => (r.url.includes('/send-preview') ? json(200, preview()) : json(200, { sending: draftState })));
+    renderWithApp(
+      <QuoteSendControls quoteId={QUOTE} revision={{ id: REV, number: 1, state: 'draft' }} beforeSend={beforeSend} />,
+    );
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: 'Send…' }));
+    const to = await screen.findByLabelText('Send to');
+    await waitFor(() => expect((to as HTMLInputElement).value).toBe('ottilie@brackenbury.example'));
+    await user.click(screen.getByRole('button', { name: 'Send quote' }));
+    const alert = await screen.findByRole('alert');
+    expect(alert.textContent).toContain('Nothing was sent: your latest edits are not saved yet');
+    expect(alert.textContent).toContain('Someone else saved this quote after you opened it.');
+    expect(beforeSend).toHaveBeenCalledTimes(1);
+    expect(sent.some((r) => r.url.endsWith('/send'))).toBe(false);
+    // the dialog stays open with what was typed, to try again once saved
+    expect(screen.getByRole('button', { name: 'Send quote' })).toBeTruthy();
   });
 
   it("lists the server's blockers and does not offer to send", async () => {

@@ -14,6 +14,9 @@ export interface SendableRevision {
   state: 'draft' | 'sent' | 'superseded';
 }
 
+/** What saving pending edits before a send came to: sending goes ahead only when `ok`. */
+export type SavedBeforeSend = { ok: true } | { ok: false; detail: string };
+
 const dateText = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
 function sentSummary(s: RevisionSendingState): string {
@@ -26,7 +29,8 @@ function sentSummary(s: RevisionSendingState): string {
 /**
  * The quote page's sending controls: download the PDF, send a draft (freezing it), send a sent
  * revision again with a new link, or revoke its links. `beforeSend` lets the page save any
- * pending edits first so what goes out is what is on screen.
+ * pending edits first (waiting for a save already on the way) so what goes out is what is on
+ * screen; when it reports the edits unsaved, nothing is sent.
  */
 export function QuoteSendControls({
   quoteId,
@@ -35,7 +39,7 @@ export function QuoteSendControls({
 }: {
   quoteId: string;
   revision: SendableRevision;
-  beforeSend?: () => Promise<unknown>;
+  beforeSend?: () => Promise<SavedBeforeSend>;
 }) {
   const sending = useSendingState(quoteId, revision.id);
   const revoke = useRevokeLinks(quoteId, revision.id);
@@ -130,12 +134,14 @@ function SendDialog({
   quoteId: string;
   revision: SendableRevision;
   kind: SendKind;
-  beforeSend?: () => Promise<unknown>;
+  beforeSend?: () => Promise<SavedBeforeSend>;
   onClose: (message?: string) => void;
 }) {
   const ref = useRef<HTMLDialogElement>(null);
   const [to, setTo] = useState<string | null>(null);
   const [message, setMessage] = useState('');
+  const [saving, setSaving] = useState(false);
+  const [unsaved, setUnsaved] = useState<string | null>(null);
   const previewMessage = useDebounced(message.trim(), 400);
   const preview = useSendPreview(quoteId, revision.id, previewMessage, true);
   const send = useSendQuote(quoteId, revision.id);
@@ -156,7 +162,16 @@ function SendDialog({
 
   async function submit(e: FormEvent) {
     e.preventDefault();
-    if (beforeSend) await beforeSend();
+    if (saving) return;
+    setUnsaved(null);
+    if (beforeSend) {
+      setSaving(true);
+      const saved = await beforeSend().finally(() => setSaving(false));
+      if (!saved.ok) {
+        setUnsaved(saved.detail);
+        return;
+      }
+    }
     const request = { ...(recipient ? { to: recipient.trim() } : {}), ...(message.trim() ? { message: message.trim() } : {}) };
     send.mutate({ kind, request }, { onSuccess: (r) => onClose(`${kind === 'send' ? 'Sent' : 'Sent again'} to ${r.sentTo}.`) });
   }
@@ -245,6 +260,11 @@ function SendDialog({
             </ul>
           </div>
         ) : null}
+        {unsaved ? (
+          <p role="alert" className="text-caption text-danger">
+            Nothing was sent: your latest edits are not saved yet, and the quote must go out as it is on screen. {unsaved}
+          </p>
+        ) : null}
         {send.isError && !toError ? (
           <p role="alert" className="text-caption text-danger">
             {send.error.message}
@@ -255,7 +275,7 @@ function SendDialog({
           <Button variant="secondary" className="h-10" onClick={() => onClose()}>
             Cancel
           </Button>
-          <Button type="submit" className="h-10" busy={send.isPending} disabled={blockers.length > 0 || !preview.data}>
+          <Button type="submit" className="h-10" busy={send.isPending || saving} disabled={blockers.length > 0 || !preview.data}>
             {kind === 'send' ? 'Send quote' : 'Send again'}
           </Button>
         </footer>

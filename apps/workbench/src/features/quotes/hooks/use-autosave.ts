@@ -15,6 +15,9 @@ export type SaveState =
 
 export const AUTOSAVE_DELAY_MS = 900;
 
+/** Whether the server now has the edits that were asked to be saved, and if not, why. */
+export type SaveOutcome = { ok: true } | { ok: false; detail: string };
+
 /**
  * Debounced autosave of the whole estimate with optimistic locking. A 409 stops saving and
  * asks the estimator: reload theirs (handed to `onReload`) or keep mine (saved over theirs on
@@ -45,10 +48,12 @@ export function useAutosave(options: {
   const [finished, setFinished] = useState(0);
   const blocked = state.kind === 'conflict';
 
-  const save = useCallback(async () => {
-    if (inFlight.current) return;
+  /** The save on the wire, if any: a second caller waits for it instead of starting another. */
+  const current = useRef<Promise<SaveOutcome> | null>(null);
+
+  const saveOnce = useCallback(async (): Promise<SaveOutcome> => {
     const sending = latest.current;
-    if (sending === saved.current) return;
+    if (sending === saved.current) return { ok: true };
     inFlight.current = true;
     setState({ kind: 'saving' });
     try {
@@ -58,14 +63,46 @@ export function useAutosave(options: {
       callbacks.current.onSaved(res.revision.totals);
       void queryClient.invalidateQueries({ queryKey: quoteKeys.lists() });
       setState(latest.current === sending ? { kind: 'saved', at: new Date() } : { kind: 'pending' });
+      return { ok: true };
     } catch (err) {
-      if (err instanceof ApiError && err.status === 409) setState({ kind: 'conflict', detail: err.detail });
-      else setState({ kind: 'error', detail: err instanceof ApiError ? err.detail : 'The estimate could not be saved.' });
+      const detail = err instanceof ApiError ? err.detail : 'The estimate could not be saved.';
+      setState(err instanceof ApiError && err.status === 409 ? { kind: 'conflict', detail } : { kind: 'error', detail });
+      return { ok: false, detail };
     } finally {
       inFlight.current = false;
       setFinished((n) => n + 1);
     }
   }, [queryClient, quoteId, revisionNumber]);
+
+  /** One save of the latest content, or the one already on the wire. */
+  const save = useCallback((): Promise<SaveOutcome> => {
+    if (current.current) return current.current;
+    const p = saveOnce().finally(() => {
+      current.current = null;
+    });
+    current.current = p;
+    return p;
+  }, [saveOnce]);
+
+  /**
+   * Save until the server has the latest edits: waits for a save already on the wire (its
+   * outcome alone says nothing about edits made meanwhile), then saves what is newer. Resolves
+   * `ok: false` with the reason when the latest edits could not be saved.
+   */
+  const saveAll = useCallback(async (): Promise<SaveOutcome> => {
+    for (let attempt = 0; attempt < 5; attempt++) {
+      if (current.current) {
+        await current.current;
+        continue;
+      }
+      if (latest.current === saved.current) return { ok: true };
+      const outcome = await save();
+      if (!outcome.ok) return outcome;
+    }
+    return latest.current === saved.current
+      ? { ok: true }
+      : { ok: false, detail: 'The estimate keeps changing while it saves; wait a moment and try again.' };
+  }, [save]);
 
   useEffect(() => {
     if (!enabled || blocked || inFlight.current || content === saved.current) return;
@@ -99,5 +136,5 @@ export function useAutosave(options: {
     await save();
   }, [quoteId, save]);
 
-  return { state, reloadTheirs, keepMine, saveNow: save };
+  return { state, reloadTheirs, keepMine, saveNow: saveAll };
 }
