@@ -23,7 +23,13 @@ const fitting = (vf: number): SeriesFitting => ({
 const driverArb = (stringV: number): fc.Arbitrary<LedDriver> =>
   fc
     .record({
-      output: fc.constantFrom<LedDriver['output']>('constant-current', 'constant-current', 'constant-current', 'constant-current', 'constant-voltage'),
+      output: fc.constantFrom<LedDriver['output']>(
+        'constant-current',
+        'constant-current',
+        'constant-current',
+        'constant-current',
+        'constant-voltage',
+      ),
       currentA: fc.constantFrom(0.35, 0.5, 0.7, 0.7, 0.7, 1.05, 0, Number.NaN),
       minFrac: fc.double({ min: 0, max: 1.1, noNaN: true }),
       maxFrac: fc.double({ min: 0.8, max: 2, noNaN: true }),
@@ -71,23 +77,25 @@ describe('chooseDrivers screens each driver as the full check would', () => {
       fc.property(
         layoutArb.chain((l) => fc.tuple(fc.constant(l.layout), fc.array(driverArb(l.stringV), { minLength: 1, maxLength: 25 }))),
         ([layout, raw]) => {
-        const catalogue = raw.map((d, k) => ({ ...d, id: `d${k}` }));
-        const choice = chooseDrivers(layout, catalogue);
-        const prepared = prepareString(layout);
-        // the reference: the full evaluation of every driver, sifted finding by finding
-        const expectSuitable = catalogue.filter((d) => rejectionReasons(prepared, d).length === 0);
-        expect(choice.suitable.map((s) => s.driver.id).sort()).toEqual(expectSuitable.map((d) => d.id).sort());
-        expect(choice.suitable.length + choice.rejected.length).toBe(catalogue.length);
-        for (const r of choice.rejected) expect(r.reasons.length).toBeGreaterThan(0);
-        // ranking key: cost, then the full result's headroom, then id
-        const ref = expectSuitable
-          .map((d) => ({ id: d.id, cost: d.costMinor ?? Infinity, headroom: evaluateDriver(prepared, d).headroomPct ?? 0 }))
-          .sort((a, b) => (a.cost !== b.cost ? a.cost - b.cost : a.headroom !== b.headroom ? b.headroom - a.headroom : a.id < b.id ? -1 : 1));
-        expect(choice.suitable.map((s) => s.driver.id)).toEqual(ref.map((r) => r.id));
-        for (const s of choice.suitable) {
-          expect(s.headroomPct).toBe(s.result.headroomPct ?? 0);
-          expect(s.result.findings.filter((f) => f.severity === 'error' && f.subject === 'driver')).toEqual([]);
-        }
+          const catalogue = raw.map((d, k) => ({ ...d, id: `d${k}` }));
+          const choice = chooseDrivers(layout, catalogue);
+          const prepared = prepareString(layout);
+          // the reference: the full evaluation of every driver, sifted finding by finding
+          const expectSuitable = catalogue.filter((d) => rejectionReasons(prepared, d).length === 0);
+          expect(choice.suitable.map((s) => s.driver.id).sort()).toEqual(expectSuitable.map((d) => d.id).sort());
+          expect(choice.suitable.length + choice.rejected.length).toBe(catalogue.length);
+          for (const r of choice.rejected) expect(r.reasons.length).toBeGreaterThan(0);
+          // ranking key: cost, then the full result's headroom, then id
+          const ref = expectSuitable
+            .map((d) => ({ id: d.id, cost: d.costMinor ?? Infinity, headroom: evaluateDriver(prepared, d).headroomPct ?? 0 }))
+            .sort((a, b) =>
+              a.cost !== b.cost ? a.cost - b.cost : a.headroom !== b.headroom ? b.headroom - a.headroom : a.id < b.id ? -1 : 1,
+            );
+          expect(choice.suitable.map((s) => s.driver.id)).toEqual(ref.map((r) => r.id));
+          for (const s of choice.suitable) {
+            expect(s.headroomPct).toBe(s.result.headroomPct ?? 0);
+            expect(s.result.findings.filter((f) => f.severity === 'error' && f.subject === 'driver')).toEqual([]);
+          }
         },
       ),
       { numRuns: 300 },
@@ -102,8 +110,24 @@ describe('chooseDrivers screens each driver as the full check would', () => {
       profile: 'uk-iec',
     };
     const choice = chooseDrivers(layout, [
-      { id: 'fits', output: 'constant-current', currentA: 0.7, voltageWindowV: { minV: 9, maxV: 42 }, efficiency: 0.88, ipCode: 'IP66', costMinor: 2300 },
-      { id: 'indoor', output: 'constant-current', currentA: 0.7, voltageWindowV: { minV: 9, maxV: 42 }, efficiency: 0.88, ipCode: 'IP20', costMinor: 1200 },
+      {
+        id: 'fits',
+        output: 'constant-current',
+        currentA: 0.7,
+        voltageWindowV: { minV: 9, maxV: 42 },
+        efficiency: 0.88,
+        ipCode: 'IP66',
+        costMinor: 2300,
+      },
+      {
+        id: 'indoor',
+        output: 'constant-current',
+        currentA: 0.7,
+        voltageWindowV: { minV: 9, maxV: 42 },
+        efficiency: 0.88,
+        ipCode: 'IP20',
+        costMinor: 1200,
+      },
     ]);
     const json = JSON.parse(JSON.stringify(choice)) as {
       suitable: { driver: { id: string }; reasons: string[]; result: { complianceVoltageV: number } }[];

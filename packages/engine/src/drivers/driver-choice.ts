@@ -6,10 +6,10 @@ import {
   evaluateDriverParts,
   fillDriverCore,
   headroomPctOf,
-  newDriverCore,
   prepareString,
   VERDICT,
   VERDICT_ELV_BASE,
+  type DriverCore,
   type PreparedString,
 } from '../series/series-string';
 import type { LedDriver, SeriesStringResult, StringLayout } from '../series/series-types';
@@ -166,11 +166,11 @@ function rejectingVerdicts(prepared: PreparedString): number {
 export function chooseDriversPrepared(prepared: PreparedString, catalogue: readonly LedDriver[]): DriverChoice {
   const suitable: SuitableDriver[] = [];
   const rejected: RejectedDriver[] = [];
-  const core = newDriverCore(prepared);
+  let core: DriverCore | undefined; // one record, reused for every driver
   const rejecting = rejectingVerdicts(prepared);
   const ipRejects = new Map<string, boolean>();
   for (const driver of catalogue) {
-    fillDriverCore(prepared, driver, core);
+    core = fillDriverCore(prepared, driver, core);
     let out = !core.recordOk || (core.verdicts & rejecting) !== 0 || (!core.cvSupply && core.at.rejecting.length > 0);
     if (!out) {
       const key = driver.ipCode ?? '';

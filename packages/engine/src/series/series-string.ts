@@ -398,29 +398,11 @@ export interface DriverCore {
   verdicts: number;
 }
 
-/** A fresh record for `fillDriverCore` to write into. */
-export function newDriverCore(prepared: PreparedString): DriverCore {
-  return {
-    recordOk: false,
-    cvSupply: false,
-    currentA: 0,
-    at: stringAtCurrent(prepared, prepared.fittings[0]?.ratings[0]?.currentA ?? 0),
-    cableLoopResistanceOhm: 0,
-    cableDropV: 0,
-    complianceVoltageV: 0,
-    outputPowerW: 0,
-    voltageMinV: null,
-    voltageMaxV: null,
-    powerMinW: null,
-    powerMaxW: null,
-    loading: null,
-    upperW: null,
-    verdicts: 0,
-  };
-}
-
-/** Work out a driver's figures and verdicts on a prepared layout into `core`. */
-export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core: DriverCore): DriverCore {
+/**
+ * Work out a driver's figures and verdicts on a prepared layout: into `core` when given (a
+ * record reused over a catalogue), else into a new record.
+ */
+export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core?: DriverCore): DriverCore {
   const cvSupply = driver?.output === 'constant-voltage';
   const recordOk = checkDriverRecord(driver).length === 0 && !cvSupply;
   const fallbackA = prepared.fittings[0]?.ratings[0]?.currentA ?? 0;
@@ -455,6 +437,31 @@ export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core
   for (let k = 0; k < limits.length; k++) {
     if (complianceVoltageV > limits[k]!.dcMaxV + VOLTAGE_EPSILON_V) verdicts |= VERDICT_ELV_BASE << k;
   }
+  const upperW =
+    voltageMaxV !== null && powerMaxW !== null
+      ? Math.min(voltageMaxV * currentA, powerMaxW)
+      : voltageMaxV !== null
+        ? voltageMaxV * currentA
+        : powerMaxW;
+  if (core === undefined) {
+    return {
+      recordOk,
+      cvSupply,
+      currentA,
+      at,
+      cableLoopResistanceOhm,
+      cableDropV,
+      complianceVoltageV,
+      outputPowerW,
+      voltageMinV,
+      voltageMaxV,
+      powerMinW,
+      powerMaxW,
+      loading,
+      upperW,
+      verdicts,
+    };
+  }
   core.recordOk = recordOk;
   core.cvSupply = cvSupply;
   core.currentA = currentA;
@@ -468,12 +475,7 @@ export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core
   core.powerMinW = powerMinW;
   core.powerMaxW = powerMaxW;
   core.loading = loading;
-  core.upperW =
-    voltageMaxV !== null && powerMaxW !== null
-      ? Math.min(voltageMaxV * currentA, powerMaxW)
-      : voltageMaxV !== null
-        ? voltageMaxV * currentA
-        : powerMaxW;
+  core.upperW = upperW;
   core.verdicts = verdicts;
   return core;
 }
@@ -488,7 +490,7 @@ export function headroomPctOf(core: DriverCore): number | null {
  * layout's and the current's shared ones, so driver choice can sift many drivers quickly.
  */
 export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver): DriverEvaluation {
-  const core = fillDriverCore(prepared, driver, newDriverCore(prepared));
+  const core = fillDriverCore(prepared, driver);
   const findings: Finding[] = [...checkDriverRecord(driver)];
   const driverWhat = `The driver${driver?.id ? ` (${driver.id})` : ''}`;
   const { cvSupply, currentA, at, cableLoopResistanceOhm, cableDropV, complianceVoltageV, outputPowerW, verdicts, loading, upperW } = core;
