@@ -6,6 +6,7 @@ import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { useKeyboardShortcut } from '../../../lib/keyboard-shortcut';
 import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
 import { useQuotes } from '../api/list-quotes';
 import type { QuoteListFilters } from '../api/quote-keys';
@@ -44,6 +45,9 @@ const STATUS_TONE: Partial<Record<QuoteStatus, 'positive' | 'pending' | 'muted' 
 
 const dateText = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
 
+/** Alt+N opens the new-quote panel (as the button advertises), except while typing in a field. */
+const NEW_QUOTE_SHORTCUT = { code: 'KeyN', alt: true } as const;
+
 export function QuotesHome() {
   const user = useSignedInUser();
   const [params, setParams] = useSearchParams();
@@ -52,6 +56,7 @@ export function QuotesHome() {
   const [creating, setCreating] = useState(params.get('new') === '1');
   const [search, setSearch] = useState(filters.q ?? '');
   const filtered = Boolean(filters.status || filters.estimatorId || filters.q);
+  useKeyboardShortcut(NEW_QUOTE_SHORTCUT, () => setCreating(true));
 
   useEffect(() => {
     const t = window.setTimeout(() => {
