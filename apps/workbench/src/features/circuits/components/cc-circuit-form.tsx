@@ -156,12 +156,12 @@ export function CcCircuitForm({
         </div>
         <table className="w-full table-fixed text-caption [&_td_label]:sr-only">
           <colgroup>
-            <col className="w-8" />
-            <col className="w-[34%]" />
-            <col />
-            <col className="w-[18%]" />
+            <col className="w-7" />
+            <col className="w-[30%]" />
+            <col className="w-[22%]" />
+            <col className="w-[22%]" />
             <col className="w-20" />
-            <col className="w-16" />
+            <col className="w-14" />
             <col className="w-28" />
           </colgroup>
           <thead>
@@ -182,7 +182,7 @@ export function CcCircuitForm({
                 Drive mA
               </th>
               <th scope="col" className="py-1">
-                Vf at driver
+                Vf
               </th>
               <th scope="col" className="py-1">
                 <span className="sr-only">Order</span>

@@ -196,7 +196,10 @@ export function CircuitEditor({
           </Button>
         </form>
       ) : null}
-      <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="flex flex-col gap-6">
+        <div className="flex min-w-0 flex-col gap-6">
+          <CircuitResults evaluation={live} general={general} onAcknowledge={onAcknowledge ?? (() => {})} />
+        </div>
         <fieldset disabled={readOnly} className="min-w-0">
           {design.kind === 'constant-current' ? (
             <CcCircuitForm
@@ -226,9 +229,6 @@ export function CircuitEditor({
             />
           )}
         </fieldset>
-        <div className="flex min-w-0 flex-col gap-6">
-          <CircuitResults evaluation={live} general={general} onAcknowledge={onAcknowledge ?? (() => {})} />
-        </div>
       </div>
       {live.blocks && live.blocks.blocks.length > 0 ? (
         <section aria-label="Wiring" className="flex flex-col gap-4">

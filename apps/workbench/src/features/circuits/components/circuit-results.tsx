@@ -41,7 +41,7 @@ export function CircuitResults({
         </p>
       </div>
       {s ? (
-        <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+        <dl className="grid grid-cols-3 gap-2 lg:grid-cols-5">
           <Figure label="String voltage (sum of Vf)" value={fmt(s.stringForwardVoltageV)} unit="V" testId="string-voltage" />
           <Figure label="Cable drop" value={fmt(s.cableDropV, 3)} unit="V" testId="cable-drop" />
           <Figure label="Driver must reach" value={fmt(s.complianceVoltageV)} unit="V" testId="compliance-voltage" />
@@ -55,7 +55,7 @@ export function CircuitResults({
       ) : p ? (
         <>
           <p className="text-caption text-ink-muted">No driver chosen yet: the string at {fmt(p.currentA * 1000, 0)} mA.</p>
-          <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+          <dl className="grid grid-cols-3 gap-2 lg:grid-cols-5">
             <Figure label="String voltage (sum of Vf)" value={fmt(p.stringForwardVoltageV)} unit="V" testId="string-voltage" />
             <Figure label="Cable drop" value={fmt(p.cableDropV, 3)} unit="V" testId="cable-drop" />
             <Figure label="Driver must reach" value={fmt(p.complianceVoltageV)} unit="V" testId="compliance-voltage" />
