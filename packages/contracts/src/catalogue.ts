@@ -1,3 +1,4 @@
+import { parseIpCode } from '@gloaming/engine';
 import { z } from 'zod';
 import { PageQuery, Version } from './customers';
 
@@ -36,14 +37,20 @@ const wholeCount = (what: string, max: number) =>
   z.number(`Enter ${what}.`).int(`${what[0]!.toUpperCase()}${what.slice(1)} is a whole number.`).min(1, 'At least 1.').max(max, `At most ${max}.`);
 
 /**
- * IEC 60529 IP code: IP + solids digit 0-6 (or X) + water digit 0-9 (or X), with the 9K of
- * ISO 20653 allowed. Upper-cased on the way in.
+ * IEC 60529 IP code, read by the engine's parser (one rule for the whole product): IP65, IPX4,
+ * IP6X, dual codes such as IP66/IP67 or IP66/67, additional (A-D) and supplementary (H M S W)
+ * letters, and ISO 20653's 9K. Stored in the parser's normal form (upper case, dual codes in full).
  */
 export const IpCodeText = z
   .string()
   .trim()
-  .toUpperCase()
-  .regex(/^IP([0-6X])([0-9X]|9K)$/, 'Write an IP code like IP65, IP67 or IPX4.');
+  .max(40, 'Write an IP code like IP65, IP67 or IPX4.')
+  .transform((text, ctx) => {
+    const parsed = parseIpCode(text);
+    if (parsed.ok) return parsed.code.text;
+    ctx.addIssue({ code: 'custom', message: 'Write an IP code like IP65, IP66/IP67 or IPX4.' });
+    return z.NEVER;
+  });
 
 /** Copper conductor by metric cross-section (IEC 60228 classes 1, 2 and 5). */
 const MetricConductor = z.object({

@@ -3,7 +3,8 @@ import { ColumnMapping, CustomerInput, DriveRating, IpCodeText, ProductInput } f
 
 describe('IP code text', () => {
   // IEC 60529: first digit 0-6 (solids), second 0-9 (water; 9 from Amd 2:2013), X for "not tested"; ISO 20653 adds 9K
-  it.each(['IP65', 'ip67', 'IPX4', 'IP6X', 'IP68', 'IP69K', ' IP44 '])('accepts %s', (text) => {
+  // IEC 60529 clause 4 (code arrangement) and Annex on dual marking; 9K from ISO 20653.
+  it.each(['IP65', 'ip67', 'IPX4', 'IP6X', 'IP68', 'IP69K', ' IP44 ', 'IP66/IP67', 'IP66/67', 'IP44D', 'IP65W'])('accepts %s', (text) => {
     expect(IpCodeText.safeParse(text).success).toBe(true);
   });
   it.each(['IP76', 'IP7', 'IP', '65', 'IP6A', 'IP65/IP68x'])('refuses %s', (text) => {
@@ -11,6 +12,7 @@ describe('IP code text', () => {
   });
   it('stores the code upper-case and trimmed', () => {
     expect(IpCodeText.parse(' ip67 ')).toBe('IP67');
+    expect(IpCodeText.parse('ip66/67')).toBe('IP66/IP67');
   });
 });
 
