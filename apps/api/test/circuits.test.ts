@@ -321,4 +321,31 @@ describe('circuits of a quote revision', () => {
     const res = await estimator.post(circuitsUrl(quoteA)).send({ area: 'Front path', design });
     expect(res.status).toBe(409);
   });
+
+  it('gives a revised draft its own copies of the circuits, with the derived lines following them', async () => {
+    const sentCircuits = CircuitListResponse.parse((await estimator.get(circuitsUrl(quoteA, 1))).body).circuits;
+    expect(sentCircuits.length).toBeGreaterThan(0);
+    const revised = await estimator.post(`/api/quotes/${quoteA}/revisions`).send({});
+    expect(revised.status).toBeLessThan(300);
+    const draft = CircuitListResponse.parse((await estimator.get(circuitsUrl(quoteA, 2))).body).circuits;
+    expect(draft.map((c) => c.name)).toEqual(sentCircuits.map((c) => c.name));
+    const oldIds = new Set(sentCircuits.map((c) => c.id));
+    expect(draft.every((c) => !oldIds.has(c.id))).toBe(true);
+    const detail = await quoteDetail();
+    expect(detail.revision.number).toBe(2);
+    const derived = detail.revision.content.sections.flatMap((s) => s.lines).filter((l) => l.circuitId);
+    expect(derived.length).toBeGreaterThan(0);
+    expect(derived.every((l) => draft.some((c) => c.id === l.circuitId))).toBe(true);
+
+    // saving a copied circuit on the draft keeps its own derived lines, and the sent revision is untouched
+    const first = draft[0]!;
+    const before = derived.filter((l) => l.circuitId === first.id).length;
+    const saved = await estimator
+      .put(`${circuitsUrl(quoteA, 2)}/${first.id}`)
+      .send({ area: first.area, name: `${first.name} (revised)`, design: first.design, version: first.version });
+    expect(saved.status).toBe(200);
+    expect(derivedLines(await quoteDetail(), first.id).length).toBe(before);
+    const sentAgain = CircuitListResponse.parse((await estimator.get(circuitsUrl(quoteA, 1))).body).circuits;
+    expect(sentAgain.map((c) => c.id)).toEqual(sentCircuits.map((c) => c.id));
+  });
 });

@@ -21,6 +21,7 @@ import {
   type RevisionTotals,
 } from '@gloaming/contracts';
 import {
+  Circuit,
   Customer,
   Organization,
   Photo,
@@ -298,7 +299,17 @@ export async function reviseQuote(em: EntityManager, quote: Quote, actor: Actor)
   const current = await currentRevision(em, quote);
   if (current.state === 'draft') throw conflict(`Revision ${current.number} is still a draft; edit it directly.`);
   const settings = settingsFromOrganization(await em.findOneOrFail(Organization, quote.organization.id));
-  const content = revisionContent(current);
+  const circuits = await em.find(Circuit, { revision: current.id }, { orderBy: { position: 'asc' } });
+  // The new draft gets its own copies of the circuits; derived lines follow their circuit's new id.
+  const circuitIds = new Map(circuits.map((c) => [c.id, newId()] as const));
+  const sent = revisionContent(current);
+  const content: EstimateContent = {
+    ...sent,
+    sections: sent.sections.map((section) => ({
+      ...section,
+      lines: section.lines.map((line) => (line.circuitId ? { ...line, circuitId: circuitIds.get(line.circuitId) ?? null } : line)),
+    })),
+  };
   // Keep the sent revision's tax rounding so the new draft prices the same until edited.
   const merged: RevisionSettings = { ...settings, vatRounding: revisionSettings(current).vatRounding };
   const totals = storedTotals(priceRevision(content, merged));
@@ -311,6 +322,18 @@ export async function reviseQuote(em: EntityManager, quote: Quote, actor: Actor)
     settings: merged,
     totals,
   });
+  for (const c of circuits)
+    em.create(Circuit, {
+      id: circuitIds.get(c.id)!,
+      organization: c.organization,
+      revision,
+      area: c.area,
+      name: c.name,
+      kind: c.kind,
+      position: c.position,
+      design: c.design,
+      result: c.result,
+    });
   quote.valueMinor = totals.totalMinor;
   appendQuoteEvent(em, quote, 'revised', actor, { revisionNumber: revision.number, from: current.number }, revision);
   await em.flush();
