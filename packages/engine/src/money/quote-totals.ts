@@ -150,12 +150,17 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   const n = lines.length;
   const ids = new Set<string>();
   const groups = new Map<string, number[]>();
-  const out: QuoteLineTotal[] = [];
-  // Sums of the included lines before the quote discount, gathered in the same pass (one
-  // pass over 5,000 lines keeps them in cache; a second would read them all back in).
-  // (typed arrays sized once: no growth garbage)
-  const includedIdx = new Int32Array(n);
-  /** Their nets before the quote discount: the weights its shares go by. */
+  // Each line's figures go into compact columns first and its output record is written once,
+  // at the end, with its final values: the working set stays small (5,000 lines fit the CPU
+  // cache) and no record is read back and rewritten. Columns are sized once (no growth).
+  const grossCol = new Array<number>(n);
+  const lineDiscountCol = new Array<number>(n);
+  const netCol = new Array<number>(n);
+  const costCol = new Array<number>(n);
+  /** 1 when the line counts in the totals. */
+  const includedCol = new Uint8Array(n);
+  // Sums of the included lines before the quote discount, gathered in the same pass.
+  /** The included lines' nets before the quote discount: the weights its shares go by. */
   const includedNet = new Float64Array(n);
   let includedCount = 0;
   let missingCost = 0;
@@ -231,7 +236,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       included = line.selected === true;
     }
     if (included) {
-      includedIdx[includedCount] = i;
+      includedCol[i] = 1;
       includedNet[includedCount] = netMinor;
       includedCount++;
       if (line.unitCostMinor === undefined) missingCost++;
@@ -239,23 +244,16 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       lineDiscountSum += lineDiscountMinor;
       preQuoteNet += netMinor;
     }
-    out.push({
-      id: line.id,
-      included,
-      grossMinor,
-      lineDiscountMinor,
-      quoteDiscountMinor: 0,
-      netMinor,
-      vatRateBp: line.vatRateBp,
-      vatTenths: null,
-      costMinor,
-      marginMinor: netMinor - costMinor,
-    });
+    grossCol[i] = grossMinor;
+    lineDiscountCol[i] = lineDiscountMinor;
+    netCol[i] = netMinor;
+    costCol[i] = costMinor;
   }
 
   let excludedLater = false;
   for (const [group, members] of groups) {
-    const chosen = members.filter((i) => out[i]!.included);
+    const chosen: number[] = [];
+    for (const i of members) if (includedCol[i] === 1) chosen.push(i);
     if (chosen.length === 0) {
       findings.push(
         finding(
@@ -269,13 +267,13 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
         ),
       );
     } else if (chosen.length > 1) {
-      for (const i of chosen.slice(1)) out[i]!.included = false;
+      for (let c = 1; c < chosen.length; c++) includedCol[chosen[c]!] = 0;
       excludedLater = true;
       findings.push(
         finding(
           'alternative-several-chosen',
           'error',
-          `Only one alternative in "${group}" can be chosen; ${chosen.length} are. Only the first ("${out[chosen[0]!]!.id}") is counted.`,
+          `Only one alternative in "${group}" can be chosen; ${chosen.length} are. Only the first ("${lines[chosen[0]!]!.id}") is counted.`,
           {
             subject: `group:${group}`,
             values: { chosen: chosen.length },
@@ -293,15 +291,13 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     lineDiscountSum = 0;
     preQuoteNet = 0;
     for (let i = 0; i < n; i++) {
-      const t = out[i]!;
-      if (!t.included) continue;
-      includedIdx[includedCount] = i;
-      includedNet[includedCount] = t.netMinor;
+      if (includedCol[i] !== 1) continue;
+      includedNet[includedCount] = netCol[i]!;
       includedCount++;
       if (lines[i]!.unitCostMinor === undefined) missingCost++;
-      grossSum += t.grossMinor;
-      lineDiscountSum += t.lineDiscountMinor;
-      preQuoteNet += t.netMinor;
+      grossSum += grossCol[i]!;
+      lineDiscountSum += lineDiscountCol[i]!;
+      preQuoteNet += netCol[i]!;
     }
   }
   if (!Number.isSafeInteger(grossSum)) {
@@ -309,7 +305,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   }
 
   let quoteDiscountMinor = 0;
-  /** Each included line's share of the quote discount, in includedIdx order; null when none. */
+  /** Each included line's share of the quote discount, in line order; null when none. */
   let shares: number[] | null = null;
   if (input.discount) {
     quoteDiscountMinor = takeFrom(preQuoteNet, input.discount);
@@ -337,28 +333,56 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   // estimates run long stretches at one rate: look the rate up only when it changes
   let lastRateBp = -1;
   let r: { netMinor: number; vatTenths: number } | undefined;
-  for (let k = 0; k < includedCount; k++) {
-    const t = out[includedIdx[k]!]!;
-    if (shares !== null) {
-      const share = shares[k]!;
-      t.quoteDiscountMinor = share;
-      t.netMinor -= share;
-      t.marginMinor = t.netMinor - t.costMinor;
+  const out = new Array<QuoteLineTotal>(n);
+  let k = 0; // index among the included lines
+  for (let i = 0; i < n; i++) {
+    const line = lines[i]!;
+    const lineCost = costCol[i]!;
+    let lineNet = netCol[i]!;
+    if (includedCol[i] !== 1) {
+      out[i] = {
+        id: line.id,
+        included: false,
+        grossMinor: grossCol[i]!,
+        lineDiscountMinor: lineDiscountCol[i]!,
+        quoteDiscountMinor: 0,
+        netMinor: lineNet,
+        vatRateBp: line.vatRateBp,
+        vatTenths: null,
+        costMinor: lineCost,
+        marginMinor: lineNet - lineCost,
+      };
+      continue;
     }
-    const vatTenths = lineVatTenths(t.netMinor, t.vatRateBp, vatRounding);
-    t.vatTenths = vatTenths;
-    if (t.vatRateBp !== lastRateBp || r === undefined) {
-      lastRateBp = t.vatRateBp;
-      r = rates.get(lastRateBp);
+    const share = shares === null ? 0 : shares[k]!;
+    k++;
+    lineNet -= share;
+    const rateBp = line.vatRateBp;
+    const vatTenths = lineVatTenths(lineNet, rateBp, vatRounding);
+    if (rateBp !== lastRateBp || r === undefined) {
+      lastRateBp = rateBp;
+      r = rates.get(rateBp);
       if (!r) {
         r = { netMinor: 0, vatTenths: 0 };
-        rates.set(lastRateBp, r);
+        rates.set(rateBp, r);
       }
     }
-    r.netMinor += t.netMinor;
+    r.netMinor += lineNet;
     if (vatTenths !== null) r.vatTenths += vatTenths;
-    netMinor += t.netMinor;
-    costMinor += t.costMinor;
+    netMinor += lineNet;
+    costMinor += lineCost;
+    out[i] = {
+      id: line.id,
+      included: true,
+      grossMinor: grossCol[i]!,
+      lineDiscountMinor: lineDiscountCol[i]!,
+      quoteDiscountMinor: share,
+      netMinor: lineNet,
+      vatRateBp: rateBp,
+      vatTenths,
+      costMinor: lineCost,
+      marginMinor: lineNet - lineCost,
+    };
   }
   const vat = vatByRate(rates, vatRounding);
   const totalMinor = netMinor + vat.vatMinor;
