@@ -4,9 +4,9 @@
  * they report. Use `pairedCases` when a ratio between two variants is asked for: both
  * sides are measured in the same run, alternating, and the ratio of medians reported.
  *
- * Run under `node --expose-gc` (the `bench` script does): before every timed block the
- * harness collects the garbage left by whatever ran before, so each block pays for its own
- * garbage only. Without --expose-gc the figures are still printed, with a note.
+ * Run under `node --expose-gc` (the `bench` script does): before every block (its warm-up,
+ * then its timed iterations) the harness collects the garbage left by whatever ran before,
+ * so each block pays for its own garbage only. Without --expose-gc the figures are still printed, with a note.
  */
 import { performance } from 'node:perf_hooks';
 
@@ -55,11 +55,15 @@ function withGcNote(note: string | undefined): string | undefined {
 
 /**
  * Time single iterations; for sub-microsecond work, batch so each sample is measurable.
- * After the warm-up, the garbage of everything before is collected (with --expose-gc), so
- * the timed iterations pay only for the garbage they make themselves.
+ * Before the warm-up, the garbage of everything before is collected (with --expose-gc), so
+ * the timed iterations pay only for the garbage this case makes itself.
  */
 export function measure(run: () => unknown, iterations?: number): { samples: number[]; iterations: number } {
-  // warm-up
+  // Collect what earlier work left first, then warm up: a full collection also drops some
+  // optimised code (code tied to objects that died), and the warm-up compiles it again
+  // before anything is timed. The garbage the timed iterations then meet is their own.
+  sink = undefined;
+  collect?.();
   const warmStart = performance.now();
   let warm = 0;
   while (performance.now() - warmStart < 100 && warm < 10_000) {
@@ -70,8 +74,6 @@ export function measure(run: () => unknown, iterations?: number): { samples: num
   const batch = perIter < 0.01 ? Math.ceil(0.01 / Math.max(perIter, 1e-6)) : 1;
   const n = iterations ?? Math.max(20, Math.min(2000, Math.ceil(500 / Math.max(perIter * batch, 1e-3))));
   const samples: number[] = [];
-  sink = undefined;
-  collect?.();
   for (let i = 0; i < n; i++) {
     const t0 = performance.now();
     for (let b = 0; b < batch; b++) sink = run();
@@ -97,7 +99,7 @@ export function runCase(c: BenchCase): BenchResult {
 }
 
 /**
- * Measure two variants alternating in one run (a, b, a, b...) and report the ratio of the
+ * Measure two variants alternating in one run (a b, b a, a b...) and report the ratio of the
  * medians b/a. Used for growth checks: a = input n, b = input 2n. Each block is collected
  * clean before it is timed (see `measure`), so neither side is charged for the other's garbage.
  */
@@ -111,8 +113,14 @@ export function pairedCases(
   const as: number[] = [];
   const bs: number[] = [];
   for (let r = 0; r < rounds; r++) {
-    as.push(median(measure(a, 30).samples));
-    bs.push(median(measure(b, 30).samples));
+    // a b, b a, a b...: a drift in machine load over the run falls on both sides alike
+    if (r % 2 === 0) {
+      as.push(median(measure(a, 30).samples));
+      bs.push(median(measure(b, 30).samples));
+    } else {
+      bs.push(median(measure(b, 30).samples));
+      as.push(median(measure(a, 30).samples));
+    }
   }
   const ma = median(as);
   const mb = median(bs);
