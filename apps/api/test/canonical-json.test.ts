@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { canonicalJson } from '../src/modules/quotes/canonical-json';
+import { canonicalJson } from '@gloaming/db';
 
 describe('canonicalJson', () => {
   it('sorts keys at every depth, keeps array order and drops undefined members', () => {

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PortalToken, Quote, QuoteEvent, QuoteRevision } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote, CUSTOMER_NAME, GARDEN_TOTAL_TEXT, gardenEstimate } from './estimate-fixture';
-import { canonicalJson } from '../src/modules/quotes/canonical-json';
+import { canonicalJson } from '@gloaming/db';
 
 let t: TestServer;
 beforeAll(async () => {

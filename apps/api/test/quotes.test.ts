@@ -13,7 +13,7 @@ import {
 } from '@gloaming/contracts';
 import { Quote, QuoteRevision } from '@gloaming/db';
 import { computeQuoteTotals } from '@gloaming/engine';
-import { canonicalJson } from '../src/modules/quotes/canonical-json';
+import { canonicalJson } from '@gloaming/db';
 import { loadQuoteForFirm, loadRevision, markRevisionSent } from '../src/modules/quotes/service';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';

@@ -3,6 +3,8 @@ export { ormConfig, type DatabaseOptions } from './config';
 export { openDatabase, migrate, migrationsOutOfDate, seedDemoIfEmpty, databaseStatus, type Database } from './database';
 export { hashPassword, verifyPassword, MIN_PASSWORD_LENGTH } from './passwords';
 export { newId, newSecretToken } from './ids';
+export { canonicalJson, contentHash } from './content-hash';
+export { revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
 export { DEMO_ACCOUNTS, DEMO_FIRM, type DemoAccount } from './seeders/demo-accounts';
 export { DemoSeeder } from './seeders/demo-seeder';
 export type { EntityManager } from '@mikro-orm/core';

@@ -31,12 +31,14 @@ import {
   Site,
   User,
   UniqueConstraintViolationException,
+  contentHash,
   newId,
+  revisionSettingsOf,
+  revisionTotalsOf,
   type EntityManager,
 } from '@gloaming/db';
 import { computeQuoteTotals, isEngineInputError, type QuoteTotals } from '@gloaming/engine';
 import { badRequest, conflict, notFound } from '../../http/problem';
-import { contentHash } from './canonical-json';
 
 export type Actor = { id: string } | null;
 
@@ -78,19 +80,7 @@ export function revisionSettings(revision: QuoteRevision): RevisionSettings {
 }
 
 /** The firm's pricing settings as a revision snapshots them. */
-export function settingsFromOrganization(firm: Organization): RevisionSettings {
-  return RevisionSettings.parse({
-    currency: firm.currency,
-    locale: firm.locale,
-    vatRounding: firm.vatRounding,
-    defaultVatRateBp: firm.vatRateBp,
-    markupPercentBp: firm.markupPercentBp,
-    depositPercentBp: firm.depositPercentBp,
-    labourRateMinorPerHour: firm.labourRateMinorPerHour,
-    quoteValidityDays: firm.quoteValidityDays,
-    termsText: firm.termsText,
-  });
-}
+export const settingsFromOrganization = revisionSettingsOf;
 
 /** The engine's totals for an estimate; input the engine refuses is a 400 naming the line. */
 export function priceRevision(content: EstimateContent, settings: RevisionSettings): QuoteTotals {
@@ -116,22 +106,7 @@ function engineSubject(subject: string | undefined, content: EstimateContent): s
 }
 
 /** What a revision stores as `totals`: the engine's figures without the per-line amounts. */
-export function storedTotals(totals: QuoteTotals): RevisionTotals {
-  return {
-    grossMinor: totals.grossMinor,
-    lineDiscountMinor: totals.lineDiscountMinor,
-    quoteDiscountMinor: totals.quoteDiscountMinor,
-    netMinor: totals.netMinor,
-    vatByRate: totals.vatByRate.map((r) => ({ rateBp: r.rateBp, netMinor: r.netMinor, vatMinor: r.vatMinor })),
-    vatMinor: totals.vatMinor,
-    totalMinor: totals.totalMinor,
-    costMinor: totals.costMinor,
-    grossMarginMinor: totals.grossMarginMinor,
-    grossMarginBp: totals.grossMarginBp,
-    deposit: totals.deposit,
-    findings: totals.findings.map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
-  };
-}
+export const storedTotals = revisionTotalsOf;
 
 /** The event types that move a quote's status, and to what. */
 const STATUS_OF_EVENT: Partial<Record<QuoteEventType, QuoteStatus>> = {
