@@ -12,7 +12,12 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const doc = (name: string): EstimateContent => ({ sections: [{ id: 's1', name, lines: [] }], discount: null, deposit: null, introduction: '' });
+const doc = (name: string): EstimateContent => ({
+  sections: [{ id: 's1', name, lines: [] }],
+  discount: null,
+  deposit: null,
+  introduction: '',
+});
 const when = '2026-12-01T10:00:00.000Z';
 const saved = (version: number): SaveRevisionResponse => ({
   revision: {
@@ -67,7 +72,9 @@ function heldFetch() {
 
 function renderAutosave(content: EstimateContent) {
   const client = createQueryClient();
-  const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  const wrapper = ({ children }: { children: ReactNode }) => (
+    <QueryClientProvider client={client}>{children}</QueryClientProvider>
+  );
   return renderHook(
     (props: { content: EstimateContent }) =>
       useAutosave({

@@ -192,7 +192,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
       <div className="flex min-h-0 min-w-0 flex-1 gap-3">
         <EstimateGrid editor={editor} settings={settings} lineTotals={lineTotals} readOnly={readOnly} draft={draft} onDraftChange={setDraft} onNotice={onNotice} />
         <div className="flex min-h-0 flex-col gap-3 overflow-y-auto">
-          {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} />}
+          {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} adjustments={{ content: editor.content, onChange: editor.change, firmDepositBp: settings.depositPercentBp, readOnly }} />}
           {user.role === 'installer' ? null : <QuotePhotosPanel quoteId={quote.id} />}
           <KeyHelp />
         </div>

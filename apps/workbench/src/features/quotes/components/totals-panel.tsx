@@ -1,8 +1,30 @@
+import type { EstimateContent } from '@gloaming/contracts';
 import type { QuoteTotals } from '@gloaming/engine';
 import { formatBasisPoints, formatMoney } from '@gloaming/engine';
+import { DiscountDepositControls } from './discount-deposit-controls';
 
-/** The engine's totals for the estimate as it stands (including the cell being typed). Staff only: cost and margin. */
-export function TotalsPanel({ totals, currency, locale }: { totals: QuoteTotals | null; currency: string; locale: string }) {
+export interface QuoteAdjustments {
+  content: EstimateContent;
+  onChange: (content: EstimateContent) => void;
+  firmDepositBp: number;
+  readOnly: boolean;
+}
+
+/**
+ * The engine's totals for the estimate as it stands (including the cell being typed), with the
+ * quote's discount and deposit to edit. Staff only: cost and margin.
+ */
+export function TotalsPanel({
+  totals,
+  currency,
+  locale,
+  adjustments,
+}: {
+  totals: QuoteTotals | null;
+  currency: string;
+  locale: string;
+  adjustments?: QuoteAdjustments;
+}) {
   const money = (n: number) => formatMoney(n, currency, locale);
   if (!totals) return null;
   const discount = totals.lineDiscountMinor + totals.quoteDiscountMinor;
@@ -16,7 +38,9 @@ export function TotalsPanel({ totals, currency, locale }: { totals: QuoteTotals 
         {discount > 0 ? (
           <>
             <dt>Discount</dt>
-            <dd className="text-right font-mono tabular-nums">−{money(discount)}</dd>
+            <dd className="text-right font-mono tabular-nums" data-total="discount">
+              −{money(discount)}
+            </dd>
           </>
         ) : null}
         <dt>Net, ex VAT</dt>
@@ -44,6 +68,7 @@ export function TotalsPanel({ totals, currency, locale }: { totals: QuoteTotals 
           </p>
         ) : null}
       </div>
+      {adjustments ? <DiscountDepositControls {...adjustments} currency={currency} /> : null}
       <dl className="grid grid-cols-[1fr_auto] gap-x-3 gap-y-1.5 rounded-control bg-dusk-950/60 p-3 text-caption">
         <dt className="col-span-2 text-micro font-semibold tracking-wide text-dusk-300 uppercase">For the firm only</dt>
         <dt>Cost</dt>

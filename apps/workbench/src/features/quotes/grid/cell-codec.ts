@@ -83,7 +83,8 @@ export function repriced(line: EstimateLine): CellWrite {
 
 const stripMoney = (text: string) => text.replace(/[£$€,\s]/g, '');
 
-function parseMinor(text: string): { ok: true; value: number } | { ok: false; error: string } {
+/** Money typed in pounds (sums allowed, like 3*12.5) -> minor units. */
+export function parseMinor(text: string): { ok: true; value: number } | { ok: false; error: string } {
   const t = stripMoney(text);
   if (t === '') return { ok: true, value: 0 };
   const r = evaluateScaled(t, 2);
@@ -93,7 +94,8 @@ function parseMinor(text: string): { ok: true; value: number } | { ok: false; er
   return r;
 }
 
-function parsePercentBp(text: string, max: number): { ok: true; value: number } | { ok: false; error: string } {
+/** A percentage typed (10, 12.5 %, 30/2) -> basis points, at most `max`. */
+export function parsePercentBp(text: string, max: number): { ok: true; value: number } | { ok: false; error: string } {
   const t = text.replace(/[%\s]/g, '');
   if (t === '') return { ok: true, value: 0 };
   const r = evaluateScaled(t, 2);
