@@ -5,7 +5,18 @@ import { useVirtualizer } from '@tanstack/react-virtual';
 import { memo, useCallback, useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
 import { cellText, newLine, pricingText, writeCell } from '../grid/cell-codec';
 import { isDerivedLine, type GridRow } from '../grid/estimate-rows';
-import { COLUMN_COUNT, GRID_COLUMNS, columnIndex, isNumericColumn, isReadOnlyColumn, type ColumnId } from '../grid/grid-columns';
+import {
+  COLUMN_COUNT,
+  COLUMN_LEFT,
+  GRID_COLUMNS,
+  GUTTER_WIDTH,
+  columnIndex,
+  isNumericColumn,
+  isReadOnlyColumn,
+  scrollLeftToShow,
+  stickyLeft,
+  type ColumnId,
+} from '../grid/grid-columns';
 import {
   applyCellEdits,
   clearRange,
@@ -60,7 +71,9 @@ const columnHelper = createColumnHelper<GridRow>();
 const TABLE_COLUMNS = GRID_COLUMNS.map((c) =>
   columnHelper.display({ id: c.id, header: c.label, size: c.width, meta: { numeric: isNumericColumn(c) } }),
 );
-const GRID_WIDTH = GRID_COLUMNS.reduce((w, c) => w + c.width, 0) + 36;
+const GRID_WIDTH = COLUMN_LEFT[COLUMN_COUNT]!;
+/** Sticky cells sit above the cells that scroll under them, on the row's own background. */
+const STICKY = 'sticky z-[11] bg-inherit';
 
 interface GridProps {
   editor: EstimateEditor;
@@ -78,7 +91,7 @@ interface GridProps {
  * active cell while typing. See the key list in the editor page's help.
  */
 export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, onDraftChange, onNotice }: GridProps) {
-  const { rows, selection, content } = editor;
+  const { rows, selection, content, change, select } = editor;
   const gridRef = useRef<HTMLDivElement>(null);
   const [picker, setPicker] = useState<{ row: number; search: string } | null>(null);
   const table = useReactTable({ data: rows as GridRow[], columns: TABLE_COLUMNS, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.key });
@@ -90,8 +103,20 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
   useEffect(() => {
     virtualizer.scrollToIndex(focusRow, { align: 'auto' });
   }, [focusRow, virtualizer]);
+  const focusCol = selection.focus.col;
+  useEffect(() => {
+    const el = gridRef.current;
+    if (!el) return;
+    const to = scrollLeftToShow(focusCol, el.scrollLeft, el.clientWidth);
+    if (to !== null) el.scrollLeft = to;
+  }, [focusCol]);
 
   const focusGrid = useCallback(() => gridRef.current?.focus({ preventScroll: true }), []);
+  // Stable, so the memoised rows that are not being edited skip re-rendering on every keystroke.
+  const cancelDraft = useCallback(() => {
+    onDraftChange(null);
+    gridRef.current?.focus({ preventScroll: true });
+  }, [onDraftChange]);
 
   const report = useCallback(
     (problems: CellProblem[], done?: string) => {
@@ -110,10 +135,10 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
         onDraftChange(d); // keep the text so nothing typed is lost
         return;
       }
-      editor.change(r.content, next ?? undefined);
+      change(r.content, next ?? undefined);
       focusGrid();
     },
-    [content, rows, editor, onDraftChange, report, focusGrid],
+    [content, rows, change, onDraftChange, report, focusGrid],
   );
 
   const startEdit = useCallback(
@@ -281,13 +306,18 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
     report(r.problems, `${block.length} row${block.length === 1 ? '' : 's'} pasted.`);
   };
 
+  // The draft through a ref, so this handler (given to every row) does not change per keystroke.
+  const draftRef = useRef(draft);
+  useEffect(() => {
+    draftRef.current = draft;
+  });
   const onCellMouseDown = useCallback(
     (row: number, col: number, shift: boolean) => {
-      if (draft) commitDraft(draft, null);
-      editor.select(shift ? { anchor: selection.anchor, focus: { row, col } } : cellSelection({ row, col }));
+      if (draftRef.current) commitDraft(draftRef.current, null);
+      select(shift ? { anchor: selection.anchor, focus: { row, col } } : cellSelection({ row, col }));
       focusGrid();
     },
-    [draft, commitDraft, editor, selection.anchor, focusGrid],
+    [commitDraft, select, selection.anchor, focusGrid],
   );
 
   const virtualItems = virtualizer.getVirtualItems();
@@ -317,14 +347,14 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
       >
         <div style={{ width: GRID_WIDTH }} className="relative">
           <div role="row" aria-rowindex={1} className="sticky top-0 z-20 flex border-b border-line-strong/40 bg-dusk-900 text-micro font-semibold tracking-wide text-dusk-100 uppercase">
-            <div className="w-9 shrink-0" aria-hidden="true" />
+            <div className={`${STICKY} left-0 shrink-0`} style={{ width: GUTTER_WIDTH }} aria-hidden="true" />
             {table.getHeaderGroups()[0]!.headers.map((h, i) => (
               <div
                 key={h.id}
                 role="columnheader"
                 aria-colindex={i + 1}
-                style={{ width: h.getSize() }}
-                className={`flex h-8 shrink-0 items-center border-r border-dusk-800 px-2 ${isNumericColumn(GRID_COLUMNS[i]!) ? 'justify-end' : ''} ${range.left <= i && i <= range.right ? 'bg-dusk-800 text-lamp-200' : ''}`}
+                style={{ width: h.getSize(), left: stickyLeft(i) ?? undefined }}
+                className={`flex h-8 shrink-0 items-center border-r border-dusk-800 px-2 ${stickyLeft(i) !== null ? 'sticky z-[11]' : ''} ${isNumericColumn(GRID_COLUMNS[i]!) ? 'justify-end' : ''} ${range.left <= i && i <= range.right ? 'bg-dusk-800 text-lamp-200' : 'bg-inherit'}`}
               >
                 {flexRender(h.column.columnDef.header, h.getContext())}
               </div>
@@ -349,10 +379,7 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
                   draft={draft && draft.row === vi.index ? draft : null}
                   onDraftChange={onDraftChange}
                   onCommit={commitDraft}
-                  onCancel={() => {
-                    onDraftChange(null);
-                    focusGrid();
-                  }}
+                  onCancel={cancelDraft}
                   onCellMouseDown={onCellMouseDown}
                   rows={rows.length}
                 />
@@ -398,6 +425,12 @@ interface RowViewProps {
   onCommit: (d: CellDraft, next: Selection | null) => void;
   onCancel: () => void;
   onCellMouseDown: (row: number, col: number, shift: boolean) => void;
+}
+
+/** Position and stacking of a cell: sticky ones above the cells scrolling under them, the focused one above its row. */
+function cellLayer(sticky: boolean, focused: boolean): string {
+  if (sticky) return focused ? 'sticky z-[12]' : 'sticky z-[11]';
+  return focused ? 'relative z-10' : 'relative';
 }
 
 function display(line: EstimateLine, id: ColumnId, lineTotal: number | undefined, currency: string, locale: string): string {
@@ -464,7 +497,7 @@ const GridRowView = memo(function GridRowView({
     const selected = selLeft >= 0;
     return (
       <div role="row" aria-rowindex={index + 2} style={style} className="absolute inset-x-0 top-0 flex border-b border-dusk-200 bg-dusk-50">
-        <div className="flex w-9 shrink-0 items-center justify-center text-dusk-400" aria-hidden="true">
+        <div className={`${STICKY} left-0 flex shrink-0 items-center justify-center text-dusk-400`} style={{ width: GUTTER_WIDTH }} aria-hidden="true">
           <svg viewBox="0 0 12 12" className="size-3">
             <path d="M2 4h8L6 9z" fill="currentColor" />
           </svg>
@@ -477,8 +510,15 @@ const GridRowView = memo(function GridRowView({
           onMouseDown={(e) => onCellMouseDown(index, focusCol >= 0 ? focusCol : 1, e.shiftKey)}
           className={`relative flex flex-1 items-center px-2 text-body font-semibold text-dusk-800 ${selected ? 'bg-dusk-100' : ''} ${focusCol >= 0 ? 'shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''}`}
         >
-          {draft ? editorFor(draft.col) : <span className="truncate">{row.section.name || 'Untitled area'}</span>}
-          <span className="ml-3 text-micro font-normal text-dusk-500">{row.section.lines.length} lines</span>
+          {draft ? (
+            editorFor(draft.col)
+          ) : (
+            // the area's name stays in view when the grid scrolls sideways
+            <span className="sticky flex max-w-[26rem] min-w-0 items-center" style={{ left: GUTTER_WIDTH + 8 }} data-section-name>
+              <span className="truncate">{row.section.name || 'Untitled area'}</span>
+              <span className="ml-3 shrink-0 text-micro font-normal text-dusk-500">{row.section.lines.length} lines</span>
+            </span>
+          )}
         </div>
       </div>
     );
@@ -492,7 +532,7 @@ const GridRowView = memo(function GridRowView({
       style={style}
       className={`absolute inset-x-0 top-0 flex border-b border-line ${derived ? 'bg-mist-50 text-ink-muted' : 'bg-surface'} ${excluded ? 'text-mist-500' : ''}`}
     >
-      <div className="flex w-9 shrink-0 items-center justify-end pr-1.5 font-mono text-micro text-mist-400" aria-hidden="true">
+      <div className={`${STICKY} left-0 flex shrink-0 items-center justify-end pr-1.5 font-mono text-micro text-mist-400`} style={{ width: GUTTER_WIDTH }} aria-hidden="true">
         {derived ? (
           <span title="Derived from a circuit: read-only" className="text-lamp-600">
             ⌁
@@ -506,6 +546,7 @@ const GridRowView = memo(function GridRowView({
         const focused = focusCol === col;
         const numeric = isNumericColumn(c);
         const editing = draft && draft.col === col;
+        const left = stickyLeft(col);
         return (
           <div
             key={c.id}
@@ -515,10 +556,10 @@ const GridRowView = memo(function GridRowView({
             aria-readonly={derived || isReadOnlyColumn(c) || undefined}
             data-col={c.id}
             onMouseDown={(e) => onCellMouseDown(index, col, e.shiftKey)}
-            style={{ width: c.width }}
-            className={`relative flex shrink-0 items-center border-r border-line/70 px-2 ${numeric ? 'justify-end font-mono tabular-nums' : ''} ${
-              selected ? 'bg-lamp-50' : ''
-            } ${focused ? 'z-10 shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''} ${c.id === 'lineTotal' ? 'font-semibold text-ink' : ''}`}
+            style={{ width: c.width, left: left ?? undefined }}
+            className={`flex shrink-0 items-center border-r border-line/70 px-2 ${cellLayer(left !== null, focused)} ${numeric ? 'justify-end font-mono tabular-nums' : ''} ${
+              selected ? 'bg-lamp-50' : left !== null ? 'bg-inherit' : ''
+            } ${focused ? 'shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''} ${c.id === 'lineTotal' ? 'font-semibold text-ink' : ''}`}
           >
             {editing ? (
               editorFor(col)
