@@ -90,6 +90,25 @@ function loopOhm(
   }
 }
 
+/** IP code and location pairs whose check came back without findings. */
+class CleanIpPairs {
+  private readonly byLocation = new Map<string, Set<string>>();
+
+  has(ipCode: unknown, location: unknown): boolean {
+    return typeof ipCode === 'string' && typeof location === 'string' && this.byLocation.get(location)?.has(ipCode) === true;
+  }
+
+  add(ipCode: unknown, location: unknown): void {
+    if (typeof ipCode !== 'string' || typeof location !== 'string') return;
+    let codes = this.byLocation.get(location);
+    if (!codes) {
+      codes = new Set();
+      this.byLocation.set(location, codes);
+    }
+    codes.add(ipCode);
+  }
+}
+
 function fittingName(index: number, id?: string): string {
   return id ? `Fitting ${index + 1} (${id})` : `Fitting ${index + 1}`;
 }
@@ -117,6 +136,10 @@ export function prepareString(layout: StringLayout): PreparedString {
   if (rawFittings.length === 0) {
     layoutFindings.push(finding('string-empty', 'error', 'The string has no fittings.', { subject: 'string' }));
   }
+  // Fittings in a string mostly share one IP code and location: a pair found clean once is
+  // clean for every fitting (the subject and name only appear in findings), so each pair is
+  // parsed and checked once instead of once per fitting.
+  const ipClean = new CleanIpPairs();
   const fittings: PreparedFitting[] = rawFittings.map((f, index) => {
     const subject = `fitting:${index + 1}`;
     const what = fittingName(index, f.id);
@@ -133,9 +156,15 @@ export function prepareString(layout: StringLayout): PreparedString {
         ),
       );
     }
-    layoutFindings.push(...checkIpForLocation(f.ipCode, f.location, { subject, prefix: 'fitting', overrides: ipOverrides, what }));
+    if (!ipClean.has(f.ipCode, f.location)) {
+      const ip = checkIpForLocation(f.ipCode, f.location, { subject, prefix: 'fitting', overrides: ipOverrides, what });
+      if (ip.length === 0) ipClean.add(f.ipCode, f.location);
+      else layoutFindings.push(...ip);
+    }
     const tail = f.tail ? loopOhm(f.tail.length, f.tail.cable, temperatureC, `${subject}/tail`, layoutFindings) : { lengthM: 0, loopOhm: 0 };
-    return { index, ...(f.id === undefined ? {} : { id: f.id }), subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm };
+    return f.id === undefined
+      ? { index, subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm }
+      : { index, id: f.id, subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm };
   });
   const runs = Array.isArray(layout.runs) ? layout.runs : [];
   const cables: PreparedCable[] = runs.map((run, k) => {
@@ -175,36 +204,39 @@ export function stringAtCurrent(prepared: PreparedString, currentA: number): Str
   let uniform = true;
   const fittings: FittingAtCurrent[] = prepared.fittings.map((f) => {
     const d = driveAtCurrent(f.ratings, currentA);
-    const what = fittingName(f.index, f.id);
-    const rated = f.ratings.map((r) => `${r2(r.currentA * 1000, 1)} mA`).join(' / ');
-    const values = { driveCurrentA: currentA, ratedCurrentsA: f.ratings.map((r) => r.currentA).join(',') };
-    if (d.status === 'above-rating') {
-      findings.push(
-        finding(
-          'current-above-rating',
-          'error',
-          `${what} is rated ${rated}; the driver's ${r2(currentA * 1000, 1)} mA will overdrive and destroy it.`,
-          { subject: f.subject, values },
-        ),
-      );
-    } else if (d.status === 'below-rating') {
-      findings.push(
-        finding(
-          'current-below-rating',
-          'warning',
-          `${what} is rated ${rated}; at the driver's ${r2(currentA * 1000, 1)} mA it runs dimmer than designed.`,
-          { subject: f.subject, values },
-        ),
-      );
-    } else if (d.status === 'between-ratings') {
-      findings.push(
-        finding(
-          'current-between-ratings',
-          'info',
-          `${what} is rated ${rated}; at ${r2(currentA * 1000, 1)} mA its forward voltage and light are interpolated.`,
-          { subject: f.subject, values },
-        ),
-      );
+    // names and rated currents are written out only for a fitting that gets a finding
+    if (d.status === 'above-rating' || d.status === 'below-rating' || d.status === 'between-ratings') {
+      const what = fittingName(f.index, f.id);
+      const rated = f.ratings.map((r) => `${r2(r.currentA * 1000, 1)} mA`).join(' / ');
+      const values = { driveCurrentA: currentA, ratedCurrentsA: f.ratings.map((r) => r.currentA).join(',') };
+      if (d.status === 'above-rating') {
+        findings.push(
+          finding(
+            'current-above-rating',
+            'error',
+            `${what} is rated ${rated}; the driver's ${r2(currentA * 1000, 1)} mA will overdrive and destroy it.`,
+            { subject: f.subject, values },
+          ),
+        );
+      } else if (d.status === 'below-rating') {
+        findings.push(
+          finding(
+            'current-below-rating',
+            'warning',
+            `${what} is rated ${rated}; at the driver's ${r2(currentA * 1000, 1)} mA it runs dimmer than designed.`,
+            { subject: f.subject, values },
+          ),
+        );
+      } else if (d.status === 'between-ratings') {
+        findings.push(
+          finding(
+            'current-between-ratings',
+            'info',
+            `${what} is rated ${rated}; at ${r2(currentA * 1000, 1)} mA its forward voltage and light are interpolated.`,
+            { subject: f.subject, values },
+          ),
+        );
+      }
     }
     const vf = d.forwardVoltageV;
     forwardVoltageV += vf;
@@ -214,16 +246,20 @@ export function stringAtCurrent(prepared: PreparedString, currentA: number): Str
     if (firstV === null) firstV = v;
     else if (Math.abs(v - firstV) > 1e-9) uniform = false;
     if (v > perFittingMaxV) perFittingMaxV = v;
-    return {
-      index: f.index,
-      ...(f.id === undefined ? {} : { id: f.id }),
-      status: d.status,
-      forwardVoltageV: vf,
-      powerW: vf * currentA,
-      lumens: d.lumens,
-      tailLoopResistanceOhm: f.tailLoopOhm,
-      tailDropV,
-    };
+    // two literals rather than a spread, so the record has the same keys in the same order
+    // without a temporary object per fitting
+    return f.id === undefined
+      ? { index: f.index, status: d.status, forwardVoltageV: vf, powerW: vf * currentA, lumens: d.lumens, tailLoopResistanceOhm: f.tailLoopOhm, tailDropV }
+      : {
+          index: f.index,
+          id: f.id,
+          status: d.status,
+          forwardVoltageV: vf,
+          powerW: vf * currentA,
+          lumens: d.lumens,
+          tailLoopResistanceOhm: f.tailLoopOhm,
+          tailDropV,
+        };
   });
   const cables: CableAtCurrent[] = prepared.cables.map((c) => ({
     subject: c.subject,
