@@ -119,7 +119,7 @@ describe('customers and the price-list import', () => {
     await form.getByRole('button', { name: 'Add to catalogue' }).click();
     await form.getByText('Enter a name.').waitFor();
     expect(await form.getByText('Enter the output current in A.').isVisible()).toBe(true);
-    expect(await form.getByText('Write an IP code like IP65, IP67 or IPX4.').isVisible()).toBe(true);
+    expect(await form.getByText('Write an IP code like IP65, IP66/IP67 or IPX4.').isVisible()).toBe(true);
     await page.screenshot({ path: screenshotPath('driver-form-errors'), fullPage: true });
     await form.getByLabel('Name', { exact: true }).fill('Nightingale 700 mA driver');
     await form.getByLabel('Supplier', { exact: true }).fill('Wagtail Lighting Wholesale');

@@ -122,6 +122,8 @@ describe('circuit designer', () => {
 
     await editor.getByRole('combobox', { name: 'Driver', exact: true }).selectOption(made.ids.driver350!);
     for (let i = 0; i < 6; i++) await editor.getByRole('button', { name: 'Add fitting' }).click();
+    // the demo catalogue has fittings of its own: choose this test's spike for every position
+    for (let i = 1; i <= 6; i++) await editor.getByLabel(`Fitting ${i} product`).selectOption(made.ids.spike!);
     await editor.getByLabel('Fitting 6 label').fill('Gate post');
     // keyboard reorder: Alt+Up moves the fitting you are on, and the focus goes with it
     await editor.getByLabel('Fitting 6 label').press('Alt+ArrowUp');
