@@ -219,6 +219,8 @@ describe('findings', () => {
     expect(bad.findings.map((f) => f.code)).toEqual(
       expect.arrayContaining(['length-invalid', 'cable-size-not-in-table', 'cv-fitting-invalid']),
     );
+    // the bad length is named at its fitting on its run
+    expect(bad.findings.find((f) => f.code === 'length-invalid')!.subject).toBe('run:neg/fitting:a');
     expect(bad.runs).toEqual([]);
     expect(checkCvRuns(base({ supply: { ...supply, ratedPowerW: 0 } })).findings.map((f) => f.code)).toContain(
       'cv-supply-invalid',

@@ -55,15 +55,21 @@ export interface CvRunVoltages {
   lossW: number;
 }
 
-/** Voltages at each fitting and the cable loss, for given conductor resistances (ohm/m). */
+/**
+ * Voltages at each fitting and the cable loss, for given conductor resistances (ohm/m).
+ * `into`, when given, is filled and returned as `voltagesV` (a scratch array reused while
+ * trying cables, so each try allocates no list of its own).
+ */
 export function runVoltages(
   run: PreparedCvRun,
   supplyV: number,
   spanOhmPerM: number,
   feederOhmPerM = spanOhmPerM,
+  into?: number[],
 ): CvRunVoltages {
   const n = run.currentsA.length;
-  const voltagesV = new Array<number>(n);
+  const voltagesV = into ?? new Array<number>(n);
+  if (voltagesV.length !== n) voltagesV.length = n;
   let lossW = 0;
   if (run.layout === 'daisy-chain') {
     let carried = run.totalCurrentA;
@@ -309,7 +315,8 @@ export function checkCvRuns(input: CvInput): CvResult {
         withinDropLimit: dropPct <= dropLimitPct + EPS,
         aboveOwnMinimum: min === null || volts >= min - EPS,
       };
-      const subject = `${runSubject}/fitting:${r.fittingId}`;
+      // the subject is written out only for a fitting that gets a finding
+      const subject = r.withinDropLimit && r.aboveOwnMinimum ? '' : `${runSubject}/fitting:${r.fittingId}`;
       if (!r.withinDropLimit) {
         findings.push(
           finding(
@@ -340,8 +347,9 @@ export function checkCvRuns(input: CvInput): CvResult {
     });
 
     let smallestCable: CvCableChoice | null = null;
+    const scratch: number[] = [];
     for (const o of options) {
-      const ov = runVoltages(prepared.run, vs, o.ohmPerM, o.ohmPerM);
+      const ov = runVoltages(prepared.run, vs, o.ohmPerM, o.ohmPerM, scratch);
       const j = judge(prepared.run, ov, vs, dropLimitPct);
       if (j.ok) {
         const wv = j.worstIndex < 0 ? vs : ov.voltagesV[j.worstIndex]!;
@@ -469,6 +477,11 @@ export function checkCvRuns(input: CvInput): CvResult {
   };
 }
 
+/** A fitting's subject on a run; written out only when a finding needs it. */
+function fittingSubject(runSubject: string, fittingId: string): string {
+  return `${runSubject}/fitting:${fittingId}`;
+}
+
 /** Validate a run and reduce it to numbers; null (with findings) when it cannot be computed. */
 function prepareRun(
   run: CvRun,
@@ -503,28 +516,41 @@ function prepareRun(
   if (run.spans.length === 0) {
     findings.push(finding('cv-run-empty', 'warning', `Run ${id} has no fittings.`, { subject }));
   }
-  const lengthsM: number[] = [];
-  const currentsA: number[] = [];
-  const minVoltagesV: (number | null)[] = [];
-  const fittingIds: string[] = [];
+  // Sized once: a fitting is only skipped when the run fails (and these are dropped).
+  const count = run.spans.length;
+  const lengthsM = new Array<number>(count);
+  const currentsA = new Array<number>(count);
+  const minVoltagesV = new Array<number | null>(count);
+  const fittingIds = new Array<string>(count);
   let loadW = 0;
   const ipChecks = new Map<string, Finding[]>();
-  for (const [k, span] of run.spans.entries()) {
+  // Most fittings on a run share an IP code and location: the last pair's check is kept at
+  // hand, so the map (and its key text) is only needed when the pair changes.
+  let lastIpCode: unknown;
+  let lastLocation: unknown;
+  let lastShape: Finding[] | null = null;
+  for (let k = 0; k < count; k++) {
+    const span = run.spans[k]!; // a hole reads as undefined, handled below as before
     const f = span?.fitting;
     const fid = typeof f?.id === 'string' && f.id !== '' ? f.id : `${k + 1}`;
-    const fs = `${subject}/fitting:${fid}`;
+    let lengthM: number;
     try {
-      lengthsM.push(lengthInMetres(span?.length, fs));
+      lengthM = lengthInMetres(span?.length);
     } catch (e) {
       if (!isEngineInputError(e)) throw e;
-      findings.push(e.finding);
+      try {
+        lengthInMetres(span?.length, fittingSubject(subject, fid));
+      } catch (named) {
+        if (!isEngineInputError(named)) throw named;
+        findings.push(named.finding);
+      }
       ok = false;
       continue;
     }
     if (typeof f !== 'object' || f === null || !isNonNegative(f.powerW)) {
       findings.push(
         finding('cv-fitting-invalid', 'error', `Fitting ${fid} on run ${id} needs a power in watts, zero or more.`, {
-          subject: fs,
+          subject: fittingSubject(subject, fid),
         }),
       );
       ok = false;
@@ -537,7 +563,7 @@ function prepareRun(
           'cv-fitting-invalid',
           'error',
           `Fitting ${fid} on run ${id} has a rated or minimum voltage that is not above zero.`,
-          { subject: fs },
+          { subject: fittingSubject(subject, fid) },
         ),
       );
       ok = false;
@@ -550,7 +576,7 @@ function prepareRun(
           'error',
           `Fitting ${fid} is rated ${rated} V but the supply is ${vs} V; use fittings and supply of the same voltage.`,
           {
-            subject: fs,
+            subject: fittingSubject(subject, fid),
             values: { fittingV: rated, supplyV: vs },
           },
         ),
@@ -563,29 +589,37 @@ function prepareRun(
           'error',
           `Fitting ${fid} is a constant-current fitting: on a constant-voltage supply it would be destroyed (common practice). It needs a constant-current driver, wired in series.`,
           {
-            subject: fs,
+            subject: fittingSubject(subject, fid),
           },
         ),
       );
     }
     if (f.location !== undefined) {
       // Most fittings on a run share an IP code and location: check each pair once per run.
-      const key = `${shown(f.ipCode)}|${shown(f.location)}`;
-      let shape = ipChecks.get(key);
-      if (!shape) {
-        shape = checkIpForLocation(f.ipCode, f.location, {
-          subject: '',
-          prefix: 'fitting',
-          what: '\u0000',
-          ...(ipOverrides ? { overrides: ipOverrides } : {}),
-        });
-        ipChecks.set(key, shape);
+      let shape: Finding[] | undefined;
+      if (lastShape !== null && typeof f.ipCode === 'string' && f.ipCode === lastIpCode && f.location === lastLocation) shape = lastShape;
+      else {
+        const key = `${shown(f.ipCode)}|${shown(f.location)}`;
+        shape = ipChecks.get(key);
+        if (!shape) {
+          shape = checkIpForLocation(f.ipCode, f.location, {
+            subject: '',
+            prefix: 'fitting',
+            what: '\u0000',
+            ...(ipOverrides ? { overrides: ipOverrides } : {}),
+          });
+          ipChecks.set(key, shape);
+        }
+        lastIpCode = f.ipCode;
+        lastLocation = f.location;
+        lastShape = shape;
       }
-      for (const x of shape) findings.push({ ...x, subject: fs, message: x.message.replace('\u0000', `Fitting ${fid}`) });
+      for (const x of shape) findings.push({ ...x, subject: fittingSubject(subject, fid), message: x.message.replace('\u0000', `Fitting ${fid}`) });
     }
-    currentsA.push(f.powerW / rated);
-    minVoltagesV.push(f.minVoltageV ?? null);
-    fittingIds.push(fid);
+    lengthsM[k] = lengthM;
+    currentsA[k] = f.powerW / rated;
+    minVoltagesV[k] = f.minVoltageV ?? null;
+    fittingIds[k] = fid;
     loadW += f.powerW;
   }
   if (!ok) return null;
