@@ -105,6 +105,10 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
   if (!groups || hasErrors(findings)) return empty();
 
   const linkRef = input.string.linkCable;
+  // Each fitting's name (`fitting:k`) is written once and shared by its + and - ends and its
+  // cable entry, instead of being written out again for each of the three.
+  const names = new Array<string>(n + 1);
+  for (let k = 1; k <= n; k++) names[k] = `fitting:${k}`;
   const blocks: PlannedBlock[] = [];
   const links: PlannedLink[] = [];
   const m = groups.length;
@@ -118,15 +122,15 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
     const fromDriver = j === 1;
     terminals.push(
       fromDriver
-        ? { conductors: ['driver+', `fitting:${a}+`], note: 'driver + to the first fitting' }
-        : { conductors: [`link:${j - 1}/core:1/end:B`, `fitting:${a}+`], note: `string in from block ${j - 1}` },
+        ? { conductors: ['driver+', `${names[a]}+`], note: 'driver + to the first fitting' }
+        : { conductors: [`link:${j - 1}/core:1/end:B`, `${names[a]}+`], note: `string in from block ${j - 1}` },
     );
-    for (let k = a; k < b; k++) terminals.push({ conductors: [`fitting:${k}-`, `fitting:${k + 1}+`] });
+    for (let k = a; k < b; k++) terminals.push({ conductors: [`${names[k]}-`, `${names[k + 1]}+`] });
     const returnIn = fromDriver ? 'driver-' : `link:${j - 1}/core:2/end:B`;
     if (last) {
-      terminals.push({ conductors: [`fitting:${b}-`, returnIn], note: 'last fitting - returns to driver -' });
+      terminals.push({ conductors: [`${names[b]}-`, returnIn], note: 'last fitting - returns to driver -' });
     } else {
-      terminals.push({ conductors: [`fitting:${b}-`, `link:${j}/core:1/end:A`], note: `string on to block ${j + 1}` });
+      terminals.push({ conductors: [`${names[b]}-`, `link:${j}/core:1/end:A`], note: `string on to block ${j + 1}` });
       terminals.push({ conductors: [returnIn, `link:${j}/core:2/end:A`], note: 'return leg to driver -, passing through' });
     }
 
@@ -136,7 +140,7 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
         ? entryUse(j, type, 'driver-lead', input.string.driverLead, findings)
         : entryUse(j, type, `link:${j - 1}`, linkRef, findings),
     );
-    for (const k of group) uses.push(entryUse(j, type, `fitting:${k}`, fittings[k - 1]?.tail, findings));
+    for (const k of group) uses.push(entryUse(j, type, names[k]!, fittings[k - 1]?.tail, findings));
     if (!last) uses.push(entryUse(j, type, `link:${j}`, linkRef, findings));
 
     blocks.push({
