@@ -1,7 +1,7 @@
 import { PRODUCT_KIND_LABELS, PRODUCT_KINDS, type Product, type ProductKind } from '@gloaming/contracts';
 import { formatMoney } from '@gloaming/engine';
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { useEffect, useMemo, useState, type KeyboardEvent } from 'react';
+import { useMemo, useState, type KeyboardEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
@@ -15,6 +15,7 @@ import type { ProductListState } from '../api/catalogue-keys';
 import { useProducts } from '../api/list-products';
 import { ProductForm } from './product-form';
 import { specSummary } from './spec-summary';
+import { useSearchAsYouType } from '../../../lib/search-as-you-type';
 
 export const PRODUCT_PAGE_SIZE = 25;
 const SORTS = ['name', 'supplierCode', 'listPriceMinor', 'updatedAt'] as const;
@@ -75,12 +76,7 @@ export function CataloguePage() {
   const [searchText, setSearchText] = useState(query.search);
   const [editing, setEditing] = useState<Product | 'new' | null>(null);
 
-  useEffect(() => {
-    if (searchText === query.search) return;
-    const timer = setTimeout(() => update({ q: searchText, page: '1' }), 250);
-    return () => clearTimeout(timer);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [searchText]);
+  useSearchAsYouType(searchText, query.search, (q) => update({ q, page: '1' }));
 
   function update(changes: Record<string, string>) {
     const next = new URLSearchParams(params);

@@ -1,6 +1,6 @@
 import type { CustomerContactFilter, CustomerSummary } from '@gloaming/contracts';
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { DataTable } from '../../../components/ui/data-table';
 import { FormMessage } from '../../../components/ui/form-message';
@@ -10,6 +10,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
 import { useCustomers } from '../api/list-customers';
 import { customerQueryFromSearch } from '../customer-list-query';
+import { useSearchAsYouType } from '../../../lib/search-as-you-type';
 
 const column = createColumnHelper<CustomerSummary>();
 const NO_CUSTOMERS: CustomerSummary[] = [];
@@ -53,13 +54,7 @@ export function CustomersPage() {
   const customers = useCustomers(query);
   const [searchText, setSearchText] = useState(query.search);
 
-  // search as you type, a moment after the last key
-  useEffect(() => {
-    if (searchText === query.search) return;
-    const timer = setTimeout(() => update({ q: searchText, page: '1' }), 250);
-    return () => clearTimeout(timer);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [searchText]);
+  useSearchAsYouType(searchText, query.search, (q) => update({ q, page: '1' }));
 
   function update(changes: Record<string, string>) {
     const next = new URLSearchParams(params);

@@ -1,6 +1,6 @@
 import { QUOTE_STATUSES, QUOTE_STATUS_LABELS, type QuoteStatus } from '@gloaming/contracts';
 import { formatMoney } from '@gloaming/engine';
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
@@ -11,6 +11,7 @@ import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
 import { useQuotes } from '../api/list-quotes';
 import type { QuoteListFilters } from '../api/quote-keys';
 import { NewQuotePanel } from './new-quote-panel';
+import { useSearchAsYouType } from '../../../lib/search-as-you-type';
 
 const QUOTE_STAGES = [
   { name: 'Draft', note: 'circuits, fittings and labour being priced' },
@@ -58,17 +59,13 @@ export function QuotesHome() {
   const filtered = Boolean(filters.status || filters.estimatorId || filters.q);
   useKeyboardShortcut(NEW_QUOTE_SHORTCUT, () => setCreating(true));
 
-  useEffect(() => {
-    const t = window.setTimeout(() => {
-      if ((filters.q ?? '') === search.trim()) return;
-      const next = new URLSearchParams(params);
-      if (search.trim()) next.set('q', search.trim());
-      else next.delete('q');
-      next.delete('page');
-      setParams(next, { replace: true });
-    }, 250);
-    return () => window.clearTimeout(t);
-  }, [search, filters.q, params, setParams]);
+  useSearchAsYouType(search.trim(), filters.q ?? '', (q) => {
+    const next = new URLSearchParams(params);
+    if (q) next.set('q', q);
+    else next.delete('q');
+    next.delete('page');
+    setParams(next, { replace: true });
+  });
 
   const setFilter = (key: string, value: string) => {
     const next = new URLSearchParams(params);
