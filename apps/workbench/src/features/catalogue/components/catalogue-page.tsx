@@ -2,7 +2,7 @@ import { PRODUCT_KIND_LABELS, PRODUCT_KINDS, type Product, type ProductKind } fr
 import { formatMoney } from '@gloaming/engine';
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo, useState, type KeyboardEvent } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { DataTable } from '../../../components/ui/data-table';
@@ -15,6 +15,7 @@ import type { ProductListState } from '../api/catalogue-keys';
 import { useProducts } from '../api/list-products';
 import { ProductForm } from './product-form';
 import { specSummary } from './spec-summary';
+import { useListSearchParams } from '../../../lib/list-search-params';
 import { useSearchAsYouType } from '../../../lib/search-as-you-type';
 
 export const PRODUCT_PAGE_SIZE = 25;
@@ -69,7 +70,7 @@ const COLUMNS = [
 
 export function CataloguePage() {
   const user = useSignedInUser();
-  const [params, setParams] = useSearchParams();
+  const [params, update] = useListSearchParams();
   const query = productQueryFromSearch(params);
   const kind = query.kind as ProductKind;
   const products = useProducts(query);
@@ -77,15 +78,6 @@ export function CataloguePage() {
   const [editing, setEditing] = useState<Product | 'new' | null>(null);
 
   useSearchAsYouType(searchText, query.search, (q) => update({ q, page: '1' }));
-
-  function update(changes: Record<string, string>) {
-    const next = new URLSearchParams(params);
-    for (const [key, value] of Object.entries(changes)) {
-      if (value === '' || (key === 'page' && value === '1')) next.delete(key);
-      else next.set(key, value);
-    }
-    setParams(next, { replace: true });
-  }
 
   const sorting: SortingState = useMemo(() => [{ id: query.sort, desc: query.direction === 'desc' }], [query.sort, query.direction]);
   const total = products.data?.total ?? 0;

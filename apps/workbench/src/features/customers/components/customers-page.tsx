@@ -1,7 +1,7 @@
 import type { CustomerContactFilter, CustomerSummary } from '@gloaming/contracts';
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
 import { DataTable } from '../../../components/ui/data-table';
 import { FormMessage } from '../../../components/ui/form-message';
 import { PageHeader } from '../../../components/ui/page-header';
@@ -10,6 +10,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
 import { useCustomers } from '../api/list-customers';
 import { customerQueryFromSearch } from '../customer-list-query';
+import { useListSearchParams } from '../../../lib/list-search-params';
 import { useSearchAsYouType } from '../../../lib/search-as-you-type';
 
 const column = createColumnHelper<CustomerSummary>();
@@ -49,21 +50,12 @@ const CONTACT_OPTIONS: { value: CustomerContactFilter; label: string }[] = [
 export function CustomersPage() {
   const user = useSignedInUser();
   const navigate = useNavigate();
-  const [params, setParams] = useSearchParams();
+  const [params, update] = useListSearchParams();
   const query = customerQueryFromSearch(params);
   const customers = useCustomers(query);
   const [searchText, setSearchText] = useState(query.search);
 
   useSearchAsYouType(searchText, query.search, (q) => update({ q, page: '1' }));
-
-  function update(changes: Record<string, string>) {
-    const next = new URLSearchParams(params);
-    for (const [key, value] of Object.entries(changes)) {
-      if (value === '' || (key === 'page' && value === '1')) next.delete(key);
-      else next.set(key, value);
-    }
-    setParams(next, { replace: true });
-  }
 
   const sorting: SortingState = useMemo(() => [{ id: query.sort, desc: query.direction === 'desc' }], [query.sort, query.direction]);
   const total = customers.data?.total ?? 0;
