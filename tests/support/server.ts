@@ -15,16 +15,25 @@ export interface RunningServer {
   stop: () => Promise<void>;
 }
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolvePort, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const address = s.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      s.close(() => resolvePort(port));
-    });
+/** `count` distinct free loopback ports: all are held open together, so none repeats. */
+export async function freePorts(count: number): Promise<number[]> {
+  const servers = await Promise.all(
+    Array.from(
+      { length: count },
+      () =>
+        new Promise<ReturnType<typeof createServer>>((resolveServer, reject) => {
+          const s = createServer();
+          s.once('error', reject);
+          s.listen(0, '127.0.0.1', () => resolveServer(s));
+        }),
+    ),
+  );
+  const ports = servers.map((s) => {
+    const address = s.address();
+    return typeof address === 'object' && address ? address.port : 0;
   });
+  await Promise.all(servers.map((s) => new Promise((r) => s.close(r))));
+  return ports;
 }
 
 /**
@@ -33,7 +42,7 @@ export async function freePort(): Promise<number> {
  */
 export async function startBuiltServer(env: Record<string, string> = {}): Promise<RunningServer> {
   const dataDir = mkdtempSync(join(tmpdir(), 'gloaming-e2e-'));
-  const [port, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
+  const [port, smtpPort, inboxPort] = (await freePorts(3)) as [number, number, number];
   let out = '';
   const child: ChildProcess = spawn(process.execPath, [join(repoRoot, 'apps/api/dist/main.js')], {
     cwd: repoRoot,
@@ -41,6 +50,9 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
       ...process.env,
       NODE_ENV: 'development',
       PORT: String(port),
+      // An IP literal, not "localhost": the server binds 127.0.0.1 only, and the browser must
+      // never try ::1 first. E-mailed links use the same origin.
+      PUBLIC_URL: `http://127.0.0.1:${port}`,
       DATA_DIR: dataDir,
       GLOAMING_SMTP_CATCHER_PORT: String(smtpPort),
       GLOAMING_INBOX_PORT: String(inboxPort),
@@ -50,7 +62,7 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
   });
   child.stdout?.on('data', (d: Buffer) => (out += d.toString()));
   child.stderr?.on('data', (d: Buffer) => (out += d.toString()));
-  const baseUrl = `http://localhost:${port}`;
+  const baseUrl = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 30_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${out}`);
