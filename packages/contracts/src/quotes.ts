@@ -43,6 +43,9 @@ export const QUOTE_EVENT_TYPES = [
   'expired',
   'deposit-paid',
   'refunded',
+  'question',
+  'reply',
+  'deposit-failed',
   'won',
   'lost',
 ] as const;

@@ -13,18 +13,26 @@ export { QuoteEvent } from './quote-event';
 export { Photo } from './photo';
 export { PortalToken } from './portal-token';
 export { Circuit, CIRCUIT_KINDS, type CircuitKind } from './circuit';
+export { QuoteApproval } from './quote-approval';
+export { DepositPayment, DEPOSIT_PAYMENT_STATES, type DepositPaymentState } from './deposit-payment';
+export { PaymentWebhookEvent } from './payment-webhook-event';
+export { QuoteMessage, MESSAGE_AUTHORS, type MessageAuthor } from './quote-message';
 
 import { AuthToken } from './auth-token';
 import { Circuit } from './circuit';
 import { Customer } from './customer';
+import { DepositPayment } from './deposit-payment';
 import { ImportJob } from './import-job';
 import { ImportMapping } from './import-mapping';
 import { Organization } from './organization';
+import { PaymentWebhookEvent } from './payment-webhook-event';
 import { Photo } from './photo';
 import { PortalToken } from './portal-token';
 import { Product } from './product';
 import { Quote } from './quote';
+import { QuoteApproval } from './quote-approval';
 import { QuoteEvent } from './quote-event';
+import { QuoteMessage } from './quote-message';
 import { QuoteRevision } from './quote-revision';
 import { Session } from './session';
 import { Site } from './site';
@@ -47,4 +55,8 @@ export const entities = [
   Photo,
   PortalToken,
   Circuit,
+  QuoteApproval,
+  DepositPayment,
+  PaymentWebhookEvent,
+  QuoteMessage,
 ];

@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201221050_portal_approval_payments } from './Migration20261201221050_portal_approval_payments';
 import { Migration20261201202956_circuits } from './Migration20261201202956_circuits';
 import { Migration20261201194445_catalogue_and_quotes } from './Migration20261201194445_catalogue_and_quotes';
 import { Migration20261201193224_initial } from './Migration20261201193224_initial';
@@ -12,5 +13,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201193224_initial', class: Migration20261201193224_initial },
   { name: 'Migration20261201194445_catalogue_and_quotes', class: Migration20261201194445_catalogue_and_quotes },
   { name: 'Migration20261201202956_circuits', class: Migration20261201202956_circuits },
+  { name: 'Migration20261201221050_portal_approval_payments', class: Migration20261201221050_portal_approval_payments },
   // next migration
 ];
