@@ -12,6 +12,8 @@ export interface TestServer extends GloamingApp {
   firmA: FirmFixture;
   firmB: FirmFixture;
   orm: Awaited<ReturnType<typeof openTestDatabase>>['orm'];
+  /** Path of the SQLite file. */
+  databaseFile: string;
   /** A supertest agent signed in as `role` of firm A (or B). Keeps its cookie. */
   signIn(role: Role, firm?: 'A' | 'B'): Promise<ReturnType<typeof request.agent>>;
   close(): Promise<void>;
@@ -20,8 +22,11 @@ export interface TestServer extends GloamingApp {
 const quietLogger = { info: () => {}, error: () => {} };
 
 /** createApp on a fresh temp SQLite database, two firms, and a real SMTP catcher. */
-export async function startTestServer(env: Record<string, string> = {}): Promise<TestServer> {
-  const db = await openTestDatabase();
+export async function startTestServer(
+  env: Record<string, string> = {},
+  database: { busyTimeoutMs?: number } = {},
+): Promise<TestServer> {
+  const db = await openTestDatabase(database);
   const catcher = await startMailCatcher();
   const config = loadConfig({
     NODE_ENV: 'test',
@@ -43,6 +48,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     firmA,
     firmB,
     orm: db.orm,
+    databaseFile: db.file,
     async signIn(role, firm = 'A') {
       const f = firm === 'A' ? firmA : firmB;
       const agent = request.agent(built.app);

@@ -9,6 +9,8 @@ export interface DatabaseOptions {
   file: string;
   /** Log SQL to the console. */
   debug?: boolean;
+  /** How long a statement waits for another connection's write lock before failing (ms). */
+  busyTimeoutMs?: number;
 }
 
 /** Directory of the TypeScript migration sources (for `migration:create`). */
@@ -22,7 +24,7 @@ interface SqliteHandle {
  * The one MikroORM configuration. WAL journal, foreign keys and a busy timeout are set on
  * every pooled connection. Migrations are listed explicitly so a bundled api finds them.
  */
-export function ormConfig({ file, debug = false }: DatabaseOptions): Options {
+export function ormConfig({ file, debug = false, busyTimeoutMs = 5000 }: DatabaseOptions): Options {
   return defineConfig({
     dbName: file,
     entities,
@@ -33,7 +35,7 @@ export function ormConfig({ file, debug = false }: DatabaseOptions): Options {
     pool: {
       afterCreate: (conn: SqliteHandle, done: (err: Error | null, conn: SqliteHandle) => void) => {
         const wal = file === ':memory:' ? '' : 'PRAGMA journal_mode = WAL;';
-        conn.exec(`${wal} PRAGMA foreign_keys = ON; PRAGMA busy_timeout = 5000; PRAGMA synchronous = NORMAL;`, (err) =>
+        conn.exec(`${wal} PRAGMA foreign_keys = ON; PRAGMA busy_timeout = ${Math.max(0, Math.trunc(busyTimeoutMs))}; PRAGMA synchronous = NORMAL;`, (err) =>
           done(err, conn),
         );
       },

@@ -8,4 +8,4 @@ export { revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
 export { DEMO_ACCOUNTS, DEMO_FIRM, type DemoAccount } from './seeders/demo-accounts';
 export { DemoSeeder } from './seeders/demo-seeder';
 export type { EntityManager } from '@mikro-orm/core';
-export { OptimisticLockError, UniqueConstraintViolationException, RequestContext } from '@mikro-orm/core';
+export { OptimisticLockError, UniqueConstraintViolationException, LockWaitTimeoutException, DeadlockException, RequestContext } from '@mikro-orm/core';

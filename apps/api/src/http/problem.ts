@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { PROBLEM_CONTENT_TYPE, type FieldError, type Problem } from '@gloaming/contracts';
-import { OptimisticLockError, UniqueConstraintViolationException } from '@gloaming/db';
+import { DeadlockException, LockWaitTimeoutException, OptimisticLockError, UniqueConstraintViolationException } from '@gloaming/db';
 
 /**
  * Errors the handlers throw on purpose. Each becomes an RFC 9457 problem+json response
@@ -74,6 +74,19 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
     }
     if (err instanceof OptimisticLockError) {
       sendProblem(res, problemFrom(conflict('Someone else saved this first. Reload to see their changes.'), instance));
+      return;
+    }
+    if (err instanceof LockWaitTimeoutException || err instanceof DeadlockException) {
+      // SQLite answered "database is locked" after its busy timeout: the write did not happen,
+      // and trying again in a moment will very likely work.
+      res.setHeader('Retry-After', '1');
+      sendProblem(res, {
+        type: '/problems/busy',
+        title: 'Busy',
+        status: 503,
+        detail: 'The database is busy. Nothing was changed; please try again in a moment.',
+        instance,
+      });
       return;
     }
     if (err instanceof UniqueConstraintViolationException) {
