@@ -17,11 +17,13 @@ export { QuoteApproval } from './quote-approval';
 export { DepositPayment, DEPOSIT_PAYMENT_STATES, type DepositPaymentState } from './deposit-payment';
 export { PaymentWebhookEvent } from './payment-webhook-event';
 export { QuoteMessage, MESSAGE_AUTHORS, type MessageAuthor } from './quote-message';
+export { FirmEvent } from './firm-event';
 
 import { AuthToken } from './auth-token';
 import { Circuit } from './circuit';
 import { Customer } from './customer';
 import { DepositPayment } from './deposit-payment';
+import { FirmEvent } from './firm-event';
 import { ImportJob } from './import-job';
 import { ImportMapping } from './import-mapping';
 import { Organization } from './organization';
@@ -59,4 +61,5 @@ export const entities = [
   DepositPayment,
   PaymentWebhookEvent,
   QuoteMessage,
+  FirmEvent,
 ];

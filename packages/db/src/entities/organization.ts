@@ -26,6 +26,18 @@ export const Organization = defineEntity({
     quoteValidityDays: p.integer().default(30),
     termsText: p.text().default(''),
     logoPath: p.string().nullable(),
+    /** Content type of the uploaded logo (image/png, image/jpeg or image/webp). */
+    logoContentType: p.string().nullable(),
+    /** Every VAT rate the firm uses (standard, reduced, zero), basis points; null means the standard rate only. */
+    vatRatesBp: p.json<number[]>().nullable(),
+    /**
+     * Circuit-design settings (DesignSettings in the contracts: labour minutes, cable slack and
+     * cut length, voltage-drop limit, driver headroom, minimum IP codes, code profile); null
+     * until the owner saves them, read as the defaults.
+     */
+    designSettings: p.json<Record<string, unknown>>().nullable(),
+    /** Shown as the sender of the firm's e-mails; empty means the firm's name. */
+    emailSenderName: p.string().default(''),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p
       .datetime()
