@@ -45,6 +45,7 @@ export {
   type WiringKind,
 } from './wiring/terminal-schedule';
 export { checkWiring, electricalNodes, type WiringCheckResult, type WiringNode } from './wiring/wiring-check';
+export * from './wiring/wiring-advice';
 // -- constant-voltage runs, takeoff, labour, money (section C)
 export * from './money';
 export * from './takeoff';
@@ -52,3 +53,5 @@ export * from './labour';
 export * from './cv';
 // -- a designed circuit (placements and catalogue products) mapped to the checks above
 export * from './circuit-design';
+// -- commissioning readings on site, against what the evaluation expects
+export * from './commissioning';
