@@ -18,9 +18,13 @@ export { DepositPayment, DEPOSIT_PAYMENT_STATES, type DepositPaymentState } from
 export { PaymentWebhookEvent } from './payment-webhook-event';
 export { QuoteMessage, MESSAGE_AUTHORS, type MessageAuthor } from './quote-message';
 export { FirmEvent } from './firm-event';
+export { CircuitAsWired } from './circuit-as-wired';
+export { CommissioningRecord } from './commissioning-record';
 
 import { AuthToken } from './auth-token';
 import { Circuit } from './circuit';
+import { CircuitAsWired } from './circuit-as-wired';
+import { CommissioningRecord } from './commissioning-record';
 import { Customer } from './customer';
 import { DepositPayment } from './deposit-payment';
 import { FirmEvent } from './firm-event';
@@ -62,4 +66,6 @@ export const entities = [
   PaymentWebhookEvent,
   QuoteMessage,
   FirmEvent,
+  CircuitAsWired,
+  CommissioningRecord,
 ];

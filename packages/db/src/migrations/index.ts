@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201221527_installer_as_wired_and_commissioning } from './Migration20261201221527_installer_as_wired_and_commissioning';
 import { Migration20261201221318_firm_settings_and_activity } from './Migration20261201221318_firm_settings_and_activity';
 import { Migration20261201221050_portal_approval_payments } from './Migration20261201221050_portal_approval_payments';
 import { Migration20261201202956_circuits } from './Migration20261201202956_circuits';
@@ -16,5 +17,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201202956_circuits', class: Migration20261201202956_circuits },
   { name: 'Migration20261201221050_portal_approval_payments', class: Migration20261201221050_portal_approval_payments },
   { name: 'Migration20261201221318_firm_settings_and_activity', class: Migration20261201221318_firm_settings_and_activity },
+  { name: 'Migration20261201221527_installer_as_wired_and_commissioning', class: Migration20261201221527_installer_as_wired_and_commissioning },
   // next migration
 ];
