@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { Blocker } from './problem';
 
 /**
  * Sending a quote revision to the homeowner: an e-mail with the PDF attached and a portal
@@ -32,7 +33,7 @@ export const SendPreviewResponse = z.object({
   text: z.string(),
   attachmentName: z.string(),
   /** Why it cannot be sent yet; empty when it can. */
-  blockers: z.array(z.object({ code: z.string(), message: z.string() })),
+  blockers: z.array(Blocker),
 });
 export type SendPreviewResponse = z.infer<typeof SendPreviewResponse>;
 

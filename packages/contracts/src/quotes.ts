@@ -7,7 +7,17 @@ import { EstimateContent, RevisionSettings } from './estimate';
  */
 
 /** Where a quote stands: the latest status-bearing step of its event history. */
-export const QUOTE_STATUSES = ['draft', 'sent', 'viewed', 'approved', 'declined', 'expired', 'deposit-paid', 'won', 'lost'] as const;
+export const QUOTE_STATUSES = [
+  'draft',
+  'sent',
+  'viewed',
+  'approved',
+  'declined',
+  'expired',
+  'deposit-paid',
+  'won',
+  'lost',
+] as const;
 export const QuoteStatus = z.enum(QUOTE_STATUSES);
 export type QuoteStatus = z.infer<typeof QuoteStatus>;
 
@@ -48,9 +58,47 @@ export const QUOTE_EVENT_TYPES = [
   'deposit-failed',
   'won',
   'lost',
+  'finding-accepted',
+  'finding-withdrawn',
 ] as const;
 export const QuoteEventType = z.enum(QUOTE_EVENT_TYPES);
 export type QuoteEventType = z.infer<typeof QuoteEventType>;
+
+/**
+ * How each event reads in a quote's history. `finding-accepted` / `finding-withdrawn` record an
+ * estimator accepting (or taking back) a circuit's error with a reason; they do not move the status.
+ */
+export const QUOTE_EVENT_LABELS: Record<QuoteEventType, string> = {
+  created: 'Created',
+  revised: 'Revised',
+  sent: 'Sent',
+  resent: 'Sent again',
+  'link-revoked': 'Links revoked',
+  viewed: 'Viewed by the customer',
+  approved: 'Approved',
+  declined: 'Declined',
+  expired: 'Expired',
+  'deposit-paid': 'Deposit paid',
+  refunded: 'Refunded',
+  question: 'Question from the customer',
+  reply: 'Reply sent',
+  'deposit-failed': 'Deposit payment failed',
+  won: 'Won',
+  lost: 'Lost',
+  'finding-accepted': 'Circuit error accepted',
+  'finding-withdrawn': 'Circuit error acceptance withdrawn',
+};
+
+/** What a `finding-accepted` / `finding-withdrawn` event records in its data. */
+export const FindingAcceptanceEventData = z.object({
+  circuitId: z.string(),
+  circuitName: z.string(),
+  area: z.string(),
+  code: z.string(),
+  subject: z.string().nullable(),
+  reason: z.string(),
+});
+export type FindingAcceptanceEventData = z.infer<typeof FindingAcceptanceEventData>;
 
 /** Q-0042: the per-firm sequence number as people say it. */
 export function formatQuoteNumber(n: number): string {

@@ -1,6 +1,11 @@
 import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { PROBLEM_CONTENT_TYPE, type FieldError, type Problem } from '@gloaming/contracts';
-import { DeadlockException, LockWaitTimeoutException, OptimisticLockError, UniqueConstraintViolationException } from '@gloaming/db';
+import {
+  DeadlockException,
+  LockWaitTimeoutException,
+  OptimisticLockError,
+  UniqueConstraintViolationException,
+} from '@gloaming/db';
 
 /**
  * Errors the handlers throw on purpose. Each becomes an RFC 9457 problem+json response
@@ -12,7 +17,7 @@ export class HttpError extends Error {
     readonly slug: string,
     readonly title: string,
     readonly detail?: string,
-    readonly extra: Partial<Pick<Problem, 'errors' | 'retryAfterSeconds'>> = {},
+    readonly extra: Partial<Pick<Problem, 'errors' | 'retryAfterSeconds' | 'blockers'>> = {},
   ) {
     super(detail ?? title);
   }
@@ -22,7 +27,8 @@ export const badRequest = (detail: string, errors?: FieldError[]) =>
   new HttpError(400, 'validation-failed', 'Some fields need attention', detail, errors ? { errors } : {});
 export const unauthorized = (detail = 'Sign in to continue.') => new HttpError(401, 'unauthenticated', 'Not signed in', detail);
 export const forbidden = (detail = 'Your role does not allow this.') => new HttpError(403, 'forbidden', 'Not allowed', detail);
-export const notFound = (what = 'That item') => new HttpError(404, 'not-found', 'Not found', `${what} does not exist or is not yours to see.`);
+export const notFound = (what = 'That item') =>
+  new HttpError(404, 'not-found', 'Not found', `${what} does not exist or is not yours to see.`);
 export const conflict = (detail: string) => new HttpError(409, 'conflict', 'Conflict', detail);
 export const gone = (detail: string) => new HttpError(410, 'gone', 'Link no longer valid', detail);
 export const tooManyRequests = (detail: string, retryAfterSeconds: number) =>
@@ -45,7 +51,9 @@ function problemFrom(err: HttpError, instance: string): Problem {
 
 /** 404 for anything under /api that no route matched. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new HttpError(404, 'no-such-route', 'Not found', `There is no ${req.method} ${req.originalUrl.split("?")[0]} in this api.`));
+  next(
+    new HttpError(404, 'no-such-route', 'Not found', `There is no ${req.method} ${req.originalUrl.split('?')[0]} in this api.`),
+  );
 };
 
 interface BodyParserError {

@@ -17,6 +17,7 @@ import type { ModuleDeps } from '../../app-deps';
 import { conflict } from '../../http/problem';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { parsed, validate } from '../../http/validate';
+import { recordAcceptances } from './acceptance-events';
 import { presentProduct } from '../catalogue/presenter';
 import { loadQuoteForFirm, loadRevision } from '../quotes/service';
 import {
@@ -87,7 +88,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: circuitStaff,
       schemas: { params: RevisionParams },
       handler: async ({ req, res, em, input, auth }) => {
-        const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
+        const { quote, revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
         const { area, name, design } = await validatedBody(req, res, CreateCircuitRequest);
         assertDraft(revision);
         const products = await productsForDesign(em, auth.organizationId, design);
@@ -104,6 +105,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
           result: storedResult(evaluateCircuit(design, products, circuitSettings(firm))),
         });
         await rederiveRevision(em, revision, [...existing, circuit]);
+        recordAcceptances(em, quote, revision, circuit, null, design, { id: auth.user.id });
         await em.flush();
         const body: CircuitSaveResponse = {
           circuit: presentCircuit(circuit),
@@ -120,7 +122,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: circuitStaff,
       schemas: { params: CircuitParams },
       handler: async ({ req, res, em, input, auth }) => {
-        const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
+        const { quote, revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
         const circuit = await loadCircuit(em, revision, input.params.circuitId);
         const { version, area, name, position, design } = await validatedBody(req, res, UpdateCircuitRequest);
         assertDraft(revision);
@@ -131,12 +133,14 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         if (design.kind !== circuit.kind)
           throw conflict('A circuit keeps its kind; add a new circuit of the other kind instead.');
         const products = await productsForDesign(em, auth.organizationId, design);
+        const previous = circuitDesign(circuit);
         circuit.area = area;
         circuit.name = name;
         if (position !== undefined) circuit.position = position;
         circuit.design = design;
         circuit.result = storedResult(evaluateCircuit(design, products, circuitSettings(firm)));
         await rederiveRevision(em, revision, await listCircuits(em, revision));
+        recordAcceptances(em, quote, revision, circuit, previous, design, { id: auth.user.id });
         await em.flush();
         const body: CircuitSaveResponse = {
           circuit: presentCircuit(circuit),

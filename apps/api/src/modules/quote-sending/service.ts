@@ -1,4 +1,5 @@
 import {
+  type Blocker,
   estimateQuoteInput,
   formatQuoteNumber,
   portalQuotePath,
@@ -7,6 +8,7 @@ import {
 } from '@gloaming/contracts';
 import {
   Customer,
+  Organization,
   PortalToken,
   type User,
   newSecretToken,
@@ -14,18 +16,49 @@ import {
   type Quote,
   type QuoteRevision,
 } from '@gloaming/db';
-import { computeQuoteTotals, formatMoney, isEngineInputError } from '@gloaming/engine';
+import { computeQuoteTotals, evaluateCircuit, formatMoney, isEngineInputError } from '@gloaming/engine';
 import type { ModuleDeps } from '../../app-deps';
 import { hashToken } from '../../auth/tokens';
 import { conflict, HttpError } from '../../http/problem';
+import { circuitDesign, circuitSettings, firmProducts, listCircuits, productRefs } from '../circuits/service';
 import { buildQuotePdfModel, priceForCustomer, validUntilFor } from '../quote-pdf/build-pdf-model';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
 import { appendQuoteEvent, markRevisionSent, revisionContent, revisionSettings, type Actor } from '../quotes/service';
 import { quoteMail, quotePdfFileName } from './quote-mail';
 
-export interface SendBlocker {
-  code: string;
-  message: string;
+export type SendBlocker = Blocker;
+
+/**
+ * Every error-severity finding of the revision's circuits that has not been accepted with a
+ * reason. Each circuit is checked again with the engine against today's catalogue (the same
+ * `evaluateCircuit` as on save), so a product changed since the last save counts too.
+ */
+export async function circuitBlockers(em: EntityManager, quote: Quote, revision: QuoteRevision): Promise<SendBlocker[]> {
+  const circuits = await listCircuits(em, revision);
+  if (circuits.length === 0) return [];
+  const designs = circuits.map((c) => ({ circuit: c, design: circuitDesign(c) }));
+  const products = await firmProducts(
+    em,
+    quote.organization.id,
+    designs.flatMap((d) => productRefs(d.design).map((r) => r.id)),
+  );
+  const firm = await em.findOneOrFail(Organization, quote.organization.id);
+  const settings = circuitSettings(firm);
+  const blockers: SendBlocker[] = [];
+  for (const { circuit, design } of designs) {
+    const evaluation = evaluateCircuit(design, products, settings);
+    const title = `${circuit.area}${circuit.name ? `: ${circuit.name}` : ''}`;
+    for (const f of evaluation.findings) {
+      if (f.severity !== 'error' || f.acknowledged !== null) continue;
+      blockers.push({
+        code: 'circuit-error',
+        message: `Circuit “${title}”: ${f.message}`,
+        pointer: `/api/quotes/${quote.id}/revisions/${revision.number}/circuits/${circuit.id}`,
+        circuit: { id: circuit.id, name: circuit.name, area: circuit.area, findingCode: f.code, subject: f.subject ?? null },
+      });
+    }
+  }
+  return blockers;
 }
 
 /** Why a draft revision cannot go out yet. Empty when it can. */
@@ -46,8 +79,9 @@ export async function sendBlockers(
       code: 'customer-without-email',
       message: `${customer.name} has no e-mail address. Add one to the customer before sending.`,
     });
+  blockers.push(...(await circuitBlockers(em, quote, revision)));
   if (blockers.length === 0) {
-    // the engine's own findings of severity "error" (circuits will add theirs) must be acknowledged
+    // the engine's own findings of severity "error" must be acknowledged
     try {
       const totals = computeQuoteTotals(estimateQuoteInput(content, settings));
       for (const f of totals.findings)
@@ -61,9 +95,17 @@ export async function sendBlockers(
 }
 
 function refuse(blockers: SendBlocker[]): HttpError {
-  const detail = blockers.map((b) => b.message).join(' ');
+  const circuitErrors = blockers.filter((b) => b.circuit).length;
+  const detail =
+    circuitErrors > 0 && circuitErrors === blockers.length
+      ? `${circuitErrors} circuit error${circuitErrors === 1 ? '' : 's'} not accepted yet. Fix each one in the circuit designer, or accept it there with a reason. ${blockers.map((b) => b.message).join(' ')}`
+      : blockers.map((b) => b.message).join(' ');
   return new HttpError(422, 'quote-not-ready', 'This quote cannot be sent yet', detail, {
-    errors: blockers.map((b) => ({ path: `quote.${b.code}`, message: b.message })),
+    errors: blockers.map((b) => ({
+      path: b.circuit ? `circuits.${b.circuit.id}.${b.circuit.subject ?? 'circuit'}.${b.circuit.findingCode}` : `quote.${b.code}`,
+      message: b.message,
+    })),
+    blockers,
   });
 }
 
