@@ -55,3 +55,5 @@ export * from './cv';
 export * from './circuit-design';
 // -- commissioning readings on site, against what the evaluation expects
 export * from './commissioning';
+// -- the installer's pick list (no prices)
+export * from './installer-pack';
