@@ -10,3 +10,4 @@ export * from './photos';
 export * from './quote-sending';
 export * from './quotes';
 export * from './circuits';
+export * from './portal';

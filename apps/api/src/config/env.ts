@@ -37,6 +37,9 @@ export const EnvSchema = z.object({
   GLOAMING_SIGNIN_MAX_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   GLOAMING_SIGNIN_MAX_PER_IP: z.coerce.number().int().min(1).default(30),
   GLOAMING_SIGNIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Portal links: unknown, withdrawn or expired links opened from one IP in the window before it must wait. */
+  GLOAMING_PORTAL_MAX_FAILED_PER_IP: z.coerce.number().int().min(1).default(20),
+  GLOAMING_PORTAL_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   LOG_REQUESTS: bool.default(false),
 });
 export type Env = z.infer<typeof EnvSchema>;
@@ -63,6 +66,7 @@ export interface AppConfig {
   };
   inboxPort: number;
   signInThrottle: { maxPerAccount: number; maxPerIp: number; windowMs: number };
+  portalThrottle: { maxFailedPerIp: number; windowMs: number };
   version: string;
 }
 
@@ -103,6 +107,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env, version = '0
       maxPerAccount: e.GLOAMING_SIGNIN_MAX_PER_ACCOUNT,
       maxPerIp: e.GLOAMING_SIGNIN_MAX_PER_IP,
       windowMs: e.GLOAMING_SIGNIN_WINDOW_MINUTES * 60_000,
+    },
+    portalThrottle: {
+      maxFailedPerIp: e.GLOAMING_PORTAL_MAX_FAILED_PER_IP,
+      windowMs: e.GLOAMING_PORTAL_WINDOW_MINUTES * 60_000,
     },
     version,
   };
