@@ -11,3 +11,4 @@ export * from './quote-sending';
 export * from './quotes';
 export * from './circuits';
 export * from './portal';
+export * from './jobs';
