@@ -7,6 +7,7 @@ import { useSendingState } from '../api/get-sending-state';
 import { useRevokeLinks } from '../api/revoke-links';
 import { useSendQuote, type SendKind } from '../api/send-quote';
 import { quotePdfUrl } from '../api/sending-keys';
+import { SendBlockers } from './send-blockers';
 
 export interface SendableRevision {
   id: string;
@@ -173,7 +174,14 @@ function SendDialog({
       }
     }
     const request = { ...(recipient ? { to: recipient.trim() } : {}), ...(message.trim() ? { message: message.trim() } : {}) };
-    send.mutate({ kind, request }, { onSuccess: (r) => onClose(`${kind === 'send' ? 'Sent' : 'Sent again'} to ${r.sentTo}.`) });
+    send.mutate(
+      { kind, request },
+      {
+        onSuccess: (r) => onClose(`${kind === 'send' ? 'Sent' : 'Sent again'} to ${r.sentTo}.`),
+        // refused for something that changed since the preview (a circuit saved elsewhere): show the list again
+        onError: () => void preview.refetch(),
+      },
+    );
   }
 
   return (
@@ -247,19 +255,7 @@ function SendDialog({
           </figure>
         </div>
 
-        {blockers.length > 0 ? (
-          <div
-            role="alert"
-            className="rounded-control bg-ember-50 px-4 py-3 text-caption text-ember-700 ring-1 ring-ember-600/40"
-          >
-            <p className="font-semibold">This quote cannot be sent yet</p>
-            <ul className="list-disc pl-5">
-              {blockers.map((b) => (
-                <li key={b.code}>{b.message}</li>
-              ))}
-            </ul>
-          </div>
-        ) : null}
+        <SendBlockers quoteId={quoteId} blockers={blockers} />
         {unsaved ? (
           <p role="alert" className="text-caption text-danger">
             Nothing was sent: your latest edits are not saved yet, and the quote must go out as it is on screen. {unsaved}
