@@ -99,3 +99,15 @@ export type PasswordResetComplete = z.infer<typeof PasswordResetComplete>;
 /** Answer for requests whose outcome is only "accepted" (never reveals whether an account exists). */
 export const Accepted = z.object({ ok: z.literal(true), message: z.string() });
 export type Accepted = z.infer<typeof Accepted>;
+
+// PATCH /api/users/:id (owner): change the role, deactivate or reactivate
+export const UpdateTeamMemberRequest = z
+  .object({
+    role: Role.optional(),
+    active: z.boolean('Say true or false.').optional(),
+  })
+  .refine((r) => r.role !== undefined || r.active !== undefined, { message: 'Send a role, or active true/false.', path: ['role'] });
+export type UpdateTeamMemberRequest = z.infer<typeof UpdateTeamMemberRequest>;
+
+export const TeamMemberResponse = z.object({ user: TeamMember });
+export type TeamMemberResponse = z.infer<typeof TeamMemberResponse>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DesignSettings } from './design-settings';
 
 /**
  * The estimate document stored in a quote revision: sections (areas of the garden) with
@@ -95,6 +96,12 @@ export const RevisionSettings = z.object({
   labourRateMinorPerHour: Minor,
   quoteValidityDays: z.number().int().min(1).max(365),
   termsText: ShortText(20_000),
+  /**
+   * The firm's circuit-design settings when the revision was made (labour minutes, cable slack
+   * and cut length, limits): derived lines use them. Absent on revisions made before firms
+   * kept them; readers fall back to the defaults.
+   */
+  design: DesignSettings.optional(),
   /**
    * Set when the revision is sent: the photos it shows, in order, with the captions they had.
    * The PDF of a sent revision prints these (a photo a sent revision shows cannot be deleted).

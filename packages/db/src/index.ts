@@ -4,7 +4,8 @@ export { openDatabase, migrate, migrationsOutOfDate, seedDemoIfEmpty, databaseSt
 export { hashPassword, verifyPassword, MIN_PASSWORD_LENGTH } from './passwords';
 export { newId, newSecretToken } from './ids';
 export { canonicalJson, contentHash } from './content-hash';
-export { revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
+export { designSettingsOf, revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
+export { sqlEm, raw } from './sql-query';
 export { DEMO_ACCOUNTS, DEMO_FIRM, type DemoAccount } from './seeders/demo-accounts';
 export { DemoSeeder } from './seeders/demo-seeder';
 export type { EntityManager } from '@mikro-orm/core';

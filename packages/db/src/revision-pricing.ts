@@ -3,9 +3,15 @@
  * revise) and the demo seeder: the firm's pricing settings as a revision snapshots them, and
  * the engine's totals without the per-line amounts.
  */
-import { RevisionSettings, type RevisionTotals } from '@gloaming/contracts';
+import { DEFAULT_DESIGN_SETTINGS, DesignSettings, RevisionSettings, type RevisionTotals } from '@gloaming/contracts';
 import type { QuoteTotals } from '@gloaming/engine';
 import type { Organization } from './entities';
+
+/** The firm's circuit-design settings; the defaults until the owner saves their own. */
+export function designSettingsOf(firm: Pick<Organization, 'designSettings'>): DesignSettings {
+  const parsed = DesignSettings.safeParse(firm.designSettings);
+  return parsed.success ? parsed.data : DEFAULT_DESIGN_SETTINGS;
+}
 
 export function revisionSettingsOf(firm: Organization): RevisionSettings {
   return RevisionSettings.parse({
@@ -18,6 +24,7 @@ export function revisionSettingsOf(firm: Organization): RevisionSettings {
     labourRateMinorPerHour: firm.labourRateMinorPerHour,
     quoteValidityDays: firm.quoteValidityDays,
     termsText: firm.termsText,
+    design: designSettingsOf(firm),
   });
 }
 
