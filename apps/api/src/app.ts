@@ -45,7 +45,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
     ...options,
     logger,
     storage: options.storage ?? new LocalFileStorage(options.config.dataDir),
-    auth: createLucia(options.orm, options.config.secureCookies),
+    auth: createLucia(options.orm, options.config.secureCookies, options.config.sessions),
   };
   const routes: RegisteredRoute[] = [];
   const app = express();

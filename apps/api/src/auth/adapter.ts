@@ -6,12 +6,20 @@ import { Session, type Database } from '@gloaming/db';
  * manager, so it never shares state with a request's unit of work.
  */
 export class MikroOrmSessionAdapter implements Adapter {
-  constructor(private readonly orm: Database) {}
+  /** `absoluteMs`: a session older than this since sign-in is ended whatever its use. */
+  constructor(
+    private readonly orm: Database,
+    private readonly absoluteMs: number,
+  ) {}
 
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
     const em = this.orm.em.fork();
     const session = await em.findOne(Session, { id: sessionId }, { populate: ['user', 'user.organization'] });
     if (!session) return [null, null];
+    if (Date.now() - session.createdAt.getTime() >= this.absoluteMs) {
+      await em.nativeDelete(Session, { id: session.id });
+      return [null, null];
+    }
     const user = session.user;
     if (!user.active) return [null, null];
     return [

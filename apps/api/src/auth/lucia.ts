@@ -5,9 +5,20 @@ import { MikroOrmSessionAdapter } from './adapter';
 
 export const SESSION_COOKIE = 'gloaming_session';
 
-export function createLucia(orm: Database, secureCookies: boolean) {
-  return new Lucia(new MikroOrmSessionAdapter(orm), {
-    sessionExpiresIn: new TimeSpan(14, 'd'),
+/** How long a session lives: `idle` since it was last used, `absolute` since sign-in at most. */
+export interface SessionLifetimes {
+  idleMinutes: number;
+  absoluteMinutes: number;
+}
+
+/**
+ * Lucia's expiry slides: each use of a session more than half-way to its expiry extends it by
+ * the idle window. The adapter adds the absolute limit, counted from sign-in, which no amount
+ * of use extends.
+ */
+export function createLucia(orm: Database, secureCookies: boolean, lifetimes: SessionLifetimes) {
+  return new Lucia(new MikroOrmSessionAdapter(orm, lifetimes.absoluteMinutes * 60_000), {
+    sessionExpiresIn: new TimeSpan(lifetimes.idleMinutes, 'm'),
     sessionCookie: {
       name: SESSION_COOKIE,
       attributes: { secure: secureCookies, sameSite: 'lax', path: '/' },

@@ -40,6 +40,9 @@ export const EnvSchema = z.object({
   /** Portal links: unknown, withdrawn or expired links opened from one IP in the window before it must wait. */
   GLOAMING_PORTAL_MAX_FAILED_PER_IP: z.coerce.number().int().min(1).default(20),
   GLOAMING_PORTAL_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** A session ends after this long unused (sliding), and this long after sign-in at the most. */
+  GLOAMING_SESSION_IDLE_HOURS: z.coerce.number().positive().default(14 * 24),
+  GLOAMING_SESSION_MAX_DAYS: z.coerce.number().positive().default(30),
   LOG_REQUESTS: bool.default(false),
 });
 export type Env = z.infer<typeof EnvSchema>;
@@ -66,6 +69,7 @@ export interface AppConfig {
   };
   inboxPort: number;
   signInThrottle: { maxPerAccount: number; maxPerIp: number; windowMs: number };
+  sessions: { idleMinutes: number; absoluteMinutes: number };
   portalThrottle: { maxFailedPerIp: number; windowMs: number };
   version: string;
 }
@@ -107,6 +111,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env, version = '0
       maxPerAccount: e.GLOAMING_SIGNIN_MAX_PER_ACCOUNT,
       maxPerIp: e.GLOAMING_SIGNIN_MAX_PER_IP,
       windowMs: e.GLOAMING_SIGNIN_WINDOW_MINUTES * 60_000,
+    },
+    sessions: {
+      idleMinutes: Math.round(e.GLOAMING_SESSION_IDLE_HOURS * 60),
+      absoluteMinutes: Math.round(e.GLOAMING_SESSION_MAX_DAYS * 24 * 60),
     },
     portalThrottle: {
       maxFailedPerIp: e.GLOAMING_PORTAL_MAX_FAILED_PER_IP,
