@@ -21,6 +21,9 @@ import { photosRouter } from './modules/photos/router';
 import { quotePdfRouter } from './modules/quote-pdf/router';
 import { quoteSendingRouter } from './modules/quote-sending/router';
 import { circuitsRouter } from './modules/circuits/router';
+import { figuresRouter } from './modules/figures/router';
+import { firmSettingsRouter } from './modules/firm-settings/router';
+import { activityRouters } from './modules/activity/router';
 
 export interface CreateAppOptions extends AppDeps {
   /** Built front ends to serve; omitted in api-only tests. */
@@ -107,6 +110,9 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   api.use(quotePdfRouter(deps, routes));
   api.use(quoteSendingRouter(deps, routes));
   api.use(circuitsRouter(deps, routes));
+  api.use(figuresRouter(deps, routes));
+  api.use(firmSettingsRouter(deps, routes));
+  for (const r of activityRouters(deps, routes)) api.use(r);
   api.use('/api', apiNotFound);
   app.use(api);
 

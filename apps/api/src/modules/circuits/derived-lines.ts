@@ -8,7 +8,7 @@
  * circuit that no longer exists go, overridden or not.
  */
 import { createHash } from 'node:crypto';
-import type { EstimateContent, EstimateLine, EstimateSection, Product, RevisionSettings } from '@gloaming/contracts';
+import { DEFAULT_DESIGN_SETTINGS, type EstimateContent, type EstimateLine, type EstimateSection, type Product, type RevisionSettings } from '@gloaming/contracts';
 import { newId } from '@gloaming/db';
 import {
   circuitTakeoff,
@@ -18,6 +18,7 @@ import {
   type CircuitDesign,
   type CircuitEvaluation,
   type LabourTable,
+  type TakeoffSettings,
 } from '@gloaming/engine';
 
 export interface DerivingCircuit {
@@ -29,17 +30,29 @@ export interface DerivingCircuit {
 }
 
 /**
- * Minutes per task until firms keep their own labour table: common practice for small
- * exterior-lighting crews (an estimate, not a standard); the hourly rate is the revision's.
+ * The labour table for a revision: the minutes the firm had set when the revision was made
+ * (its settings snapshot; the contracts' common-practice defaults for revisions made before
+ * firms kept their own), at the revision's hourly rate. Fittings of every kind take the
+ * firm's minutes per fitting.
  */
-export const DEFAULT_CIRCUIT_LABOUR: Omit<LabourTable, 'rateMinorPerHour'> = {
-  minutesPerFitting: {},
-  defaultMinutesPerFitting: 20,
-  minutesPerDriver: 30,
-  minutesPerConnectorBlock: 15,
-  minutesPerMetre: { 'surface-clipped': 1.5, 'buried-trench': 6, 'in-duct': 2.5 },
-  minutesPerCircuitTest: 20,
-};
+export function labourTableFor(settings: RevisionSettings): LabourTable {
+  const m = (settings.design ?? DEFAULT_DESIGN_SETTINGS).labourMinutes;
+  return {
+    minutesPerFitting: {},
+    defaultMinutesPerFitting: m.minutesPerFitting,
+    minutesPerDriver: m.minutesPerDriver,
+    minutesPerConnectorBlock: m.minutesPerConnectorBlock,
+    minutesPerMetre: { ...m.minutesPerMetre },
+    minutesPerCircuitTest: m.minutesPerCircuitTest,
+    rateMinorPerHour: settings.labourRateMinorPerHour,
+  };
+}
+
+/** Cable slack and cut length as the revision's settings give them, for the takeoff. */
+export function takeoffSettingsFor(settings: RevisionSettings): TakeoffSettings {
+  const d = settings.design ?? DEFAULT_DESIGN_SETTINGS;
+  return { cableSlackBp: d.cableSlackBp, cableCutLengthM: d.cableCutLengthMm / 1000 };
+}
 
 /** A stable line id for a circuit's derived line, so an override is recognised on the next save. */
 export function derivedLineId(circuitId: string, key: string): string {
@@ -80,7 +93,7 @@ export function circuitLines(c: DerivingCircuit, products: readonly Product[], s
     return l;
   };
   const out: EstimateLine[] = [];
-  for (const m of takeoff({ circuits: [circuit], catalogue }).lines) {
+  for (const m of takeoff({ circuits: [circuit], catalogue, settings: takeoffSettingsFor(settings) }).lines) {
     const cable = m.cable;
     out.push(
       line(`material:${m.productId}`, {
@@ -96,7 +109,7 @@ export function circuitLines(c: DerivingCircuit, products: readonly Product[], s
   const lab = labour({
     circuits: [circuit],
     catalogue,
-    table: { ...DEFAULT_CIRCUIT_LABOUR, rateMinorPerHour: settings.labourRateMinorPerHour },
+    table: labourTableFor(settings),
   });
   for (const l of lab.lines) {
     out.push(

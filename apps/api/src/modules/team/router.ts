@@ -1,4 +1,4 @@
-import { AcceptInviteRequest, IdParams, InviteRequest } from '@gloaming/contracts';
+import { AcceptInviteRequest, IdParams, InviteRequest, UpdateTeamMemberRequest } from '@gloaming/contracts';
 import { User, hashPassword } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { consumeToken } from '../../auth/tokens';
@@ -7,7 +7,7 @@ import { allowRoles, moduleRouter, publicRoute, route, type RegisteredRoute } fr
 import { presentSessionUser } from '../session/presenter';
 import { startSession } from '../session/service';
 import { presentTeamMember } from './presenter';
-import { findFirmUser, inviteUser, resendInvite } from './service';
+import { findFirmUser, inviteUser, resendInvite, updateTeamMember } from './service';
 
 const ownerOnly = allowRoles('owner');
 
@@ -35,6 +35,21 @@ export function teamRouters(deps: ModuleDeps, registry: RegisteredRoute[]) {
       },
     }),
     route({
+      method: 'patch',
+      path: '/:id',
+      summary: "Change a person's role, or deactivate / reactivate them (their sessions end)",
+      policy: ownerOnly,
+      schemas: { params: IdParams, body: UpdateTeamMemberRequest },
+      handler: async ({ res, em, input, auth: ctx }) => {
+        const user = await findFirmUser(em, ctx.organizationId, input.params.id);
+        const change = await updateTeamMember(em, auth, ctx.organizationId, ctx.user.id, user, input.body);
+        // the acting owner's old session ended with the change: sign this browser in afresh
+        if (change.rotateOwnSession) await startSession(auth, res, change.user);
+        else if (change.user.id === ctx.user.id && !change.user.active) res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+        res.json({ user: presentTeamMember(change.user) });
+      },
+    }),
+    route({
       method: 'post',
       path: '/:id/invite',
       summary: 'Send the invitation again',
@@ -55,7 +70,7 @@ export function teamRouters(deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: ownerOnly,
       schemas: { body: InviteRequest },
       handler: async ({ res, em, input, auth: ctx }) => {
-        const user = await inviteUser(em, mailer, config.publicUrl, ctx.organizationId, ctx.user.name, input.body);
+        const user = await inviteUser(em, mailer, config.publicUrl, ctx.organizationId, ctx.user.id, ctx.user.name, input.body);
         res.status(201).json({ user: presentTeamMember(user) });
       },
     }),
