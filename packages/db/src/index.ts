@@ -3,6 +3,7 @@ export { ormConfig, type DatabaseOptions } from './config';
 export { openDatabase, migrate, migrationsOutOfDate, seedDemoIfEmpty, databaseStatus, type Database } from './database';
 export { hashPassword, verifyPassword, MIN_PASSWORD_LENGTH } from './passwords';
 export { newId, newSecretToken } from './ids';
+export { backupDatabase, restoreDatabase, integrityCheck } from './backup';
 export { canonicalJson, contentHash } from './content-hash';
 export { designSettingsOf, revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
 export { sqlEm, raw } from './sql-query';
