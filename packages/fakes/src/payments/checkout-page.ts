@@ -81,7 +81,7 @@ label{display:block;font-weight:600;margin-top:1rem}
 input{display:block;width:100%;font:inherit;padding:.65rem .75rem;margin-top:.3rem;border:2px solid #6b6f85;border-radius:.5rem;background:#fff;color:inherit}
 input:focus,button:focus,a:focus,summary:focus{outline:3px solid #e0a100;outline-offset:2px}
 input[aria-invalid=true]{border-color:#b3261e}
-.row{display:flex;gap:.75rem}.row>div{flex:1}
+.row{display:flex;gap:.75rem;align-items:flex-end}.row>div{flex:1}
 .field-error{color:#b3261e;font-weight:600;margin:.25rem 0 0}
 .problem{border:2px solid #b3261e;border-radius:.5rem;padding:.75rem 1rem;background:#fdf0ef;margin-top:1rem}
 .problem h2{font-size:1.05rem;margin:0 0 .25rem}
@@ -129,7 +129,7 @@ const FIELDS: readonly {
     name: 'cvc',
     id: 'cvc',
     label: 'Security code',
-    hint: '3 or 4 digits on the back',
+    hint: '3 or 4 digits',
     autocomplete: 'cc-csc',
     inputmode: 'numeric',
     maxlength: 4,
