@@ -1,14 +1,15 @@
 /**
  * Start Gloaming: validate the configuration, open and migrate the SQLite database under
- * DATA_DIR (seeding the demo firm into a new one), start the local fakes outside
- * production, then serve the api, the workbench and the portal. Shuts down cleanly on
- * SIGINT/SIGTERM.
+ * DATA_DIR (seeding the demo firm into a new one), start the local fakes (mail catcher,
+ * payment-provider fake) outside production, then serve the api, the workbench and the
+ * portal. Shuts down cleanly on SIGINT/SIGTERM.
  */
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import type { Server } from 'node:http';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { DEMO_ACCOUNTS, DEMO_FIRM, migrate, openDatabase, seedDemoIfEmpty } from '@gloaming/db';
+import type { PaymentFake } from '@gloaming/fakes';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
 import { createSmtpMailer } from './mail/mailer';
@@ -44,11 +45,30 @@ async function main(): Promise<void> {
 
   let stopFakes: (() => Promise<void>) | undefined;
   let inboxUrl: string | undefined;
+  let paymentFake: PaymentFake | undefined;
   if (config.startFakes) {
-    const { startMailCatcher } = await import('@gloaming/fakes');
+    const { startMailCatcher, startPaymentFake } = await import('@gloaming/fakes');
     const catcher = await startMailCatcher({ host: '127.0.0.1', smtpPort: config.mail.port, webPort: config.inboxPort });
-    stopFakes = () => catcher.close();
     inboxUrl = `http://127.0.0.1:${catcher.webPort}/`;
+    const fake = await startPaymentFake({
+      host: '127.0.0.1',
+      port: config.paymentsFakePort,
+      secretKey: config.payments.secretKey,
+      webhookSecret: config.payments.webhookSecret,
+    }).catch(async (err: unknown) => {
+      await catcher.close();
+      throw err;
+    });
+    paymentFake = fake;
+    // With GLOAMING_PAYMENTS_FAKE_PORT=0 the fake took a free port: point the SDK at it.
+    const api = config.payments.api;
+    if (api && api.host === '127.0.0.1' && api.port === config.paymentsFakePort) {
+      config.payments.api = { ...api, port: fake.port };
+    }
+    stopFakes = async () => {
+      await fake.close();
+      await catcher.close();
+    };
   }
 
   const mailer = createSmtpMailer(config.mail);
@@ -65,7 +85,12 @@ async function main(): Promise<void> {
   });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
-  const base = config.publicUrl.includes(`:${config.port}`) ? config.publicUrl.replace(`:${config.port}`, `:${port}`) : config.publicUrl;
+  const base = config.publicUrl.includes(`:${config.port}`)
+    ? config.publicUrl.replace(`:${config.port}`, `:${port}`)
+    : config.publicUrl;
+  // The fake delivers webhooks straight to this process on loopback, whatever PUBLIC_URL says.
+  const loopback = ['0.0.0.0', '::', ''].includes(config.host) ? '127.0.0.1' : config.host;
+  paymentFake?.setWebhookUrl(`http://${loopback.includes(':') ? `[${loopback}]` : loopback}:${port}/api/payments/webhook`);
 
   const lines = [
     '',
@@ -74,6 +99,7 @@ async function main(): Promise<void> {
     `  Portal     ${base}/portal/`,
     `  Health     ${base}/api/health`,
     ...(inboxUrl ? [`  Inbox      ${inboxUrl}  (local SMTP catcher: every e-mail lands here)`] : []),
+    ...(paymentFake ? [`  Payments   ${paymentFake.url}/  (local payment-provider fake: test cards, no real money)`] : []),
     `  Database   ${config.databaseFile}${isNewDatabase ? ' (new)' : ''}${applied.length ? `, ${applied.length} migration(s) applied` : ''}${seeded ? ', demo firm seeded' : ''}`,
   ];
   if (config.seedDemo) {

@@ -1,9 +1,7 @@
 import { resolve } from 'node:path';
 import { z } from 'zod';
 
-const bool = z
-  .enum(['true', 'false', '1', '0', 'yes', 'no'])
-  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes');
 
 /**
  * Every setting the api reads, validated at start-up. Defaults make `npm start` work on a
@@ -25,10 +23,19 @@ export const EnvSchema = z.object({
   SMTP_PASS: z.string().optional(),
   SMTP_SECURE: bool.default(false),
   MAIL_FROM: z.string().default('Gloaming <no-reply@gloaming.invalid>'),
-  /** Start the local stand-ins (SMTP catcher and inbox) in-process. Defaults on outside production. */
+  /** Start the local stand-ins (SMTP catcher and inbox, payment-provider fake) in-process. Defaults on outside production. */
   GLOAMING_FAKES: bool.optional(),
   GLOAMING_INBOX_PORT: z.coerce.number().int().min(0).max(65535).default(3025),
   GLOAMING_SMTP_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Card payments through the provider's SDK. Required in production; local defaults otherwise. */
+  STRIPE_SECRET_KEY: z.string().trim().min(1).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().trim().min(1).optional(),
+  /** Where the SDK sends requests; unset = the hosted service (or the local fake when the fakes run). */
+  STRIPE_API_HOST: z.string().trim().min(1).optional(),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
+  /** Port of the local payment-provider fake; 0 takes any free port. */
+  GLOAMING_PAYMENTS_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(3026),
   /** Seed the demo firm into an empty database. */
   GLOAMING_SEED_DEMO: bool.default(true),
   /** Express "trust proxy" setting, for the client IP behind a reverse proxy. */
@@ -41,7 +48,10 @@ export const EnvSchema = z.object({
   GLOAMING_PORTAL_MAX_FAILED_PER_IP: z.coerce.number().int().min(1).default(20),
   GLOAMING_PORTAL_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   /** A session ends after this long unused (sliding), and this long after sign-in at the most. */
-  GLOAMING_SESSION_IDLE_HOURS: z.coerce.number().positive().default(14 * 24),
+  GLOAMING_SESSION_IDLE_HOURS: z.coerce
+    .number()
+    .positive()
+    .default(14 * 24),
   GLOAMING_SESSION_MAX_DAYS: z.coerce.number().positive().default(30),
   LOG_REQUESTS: bool.default(false),
 });
@@ -68,6 +78,14 @@ export interface AppConfig {
     from: string;
   };
   inboxPort: number;
+  /** Port asked of the local payment fake (0 = any free port); used only when the fakes run. */
+  paymentsFakePort: number;
+  payments: {
+    secretKey: string;
+    webhookSecret: string;
+    /** Where the SDK sends requests; undefined = the hosted service. */
+    api?: { host: string; port: number; protocol: 'http' | 'https' };
+  };
   signInThrottle: { maxPerAccount: number; maxPerIp: number; windowMs: number };
   sessions: { idleMinutes: number; absoluteMinutes: number };
   portalThrottle: { maxFailedPerIp: number; windowMs: number };
@@ -75,6 +93,43 @@ export interface AppConfig {
 }
 
 export class ConfigError extends Error {}
+
+/** The local fake's credentials, used outside production (or when the fakes run in production). */
+export const LOCAL_PAYMENT_SECRET_KEY = 'sk_test_gloaming_local';
+export const LOCAL_WEBHOOK_SECRET = 'whsec_gloaming_local';
+
+function paymentsConfig(e: Env, startFakes: boolean): AppConfig['payments'] {
+  const localDefaults = startFakes || e.NODE_ENV !== 'production';
+  const missing = [
+    ...(e.STRIPE_SECRET_KEY || localDefaults ? [] : ['STRIPE_SECRET_KEY']),
+    ...(e.STRIPE_WEBHOOK_SECRET || localDefaults ? [] : ['STRIPE_WEBHOOK_SECRET']),
+  ];
+  if (missing.length) {
+    throw new ConfigError(
+      `Invalid configuration:\n${missing.map((m) => `  ${m}: required in production (card payments)`).join('\n')}`,
+    );
+  }
+  let api: AppConfig['payments']['api'];
+  if (e.STRIPE_API_HOST) {
+    const protocol = e.STRIPE_API_PROTOCOL ?? 'https';
+    api = { host: e.STRIPE_API_HOST, port: e.STRIPE_API_PORT ?? (protocol === 'https' ? 443 : 80), protocol };
+  } else if (startFakes) {
+    api = {
+      host: '127.0.0.1',
+      port: e.STRIPE_API_PORT ?? e.GLOAMING_PAYMENTS_FAKE_PORT,
+      protocol: e.STRIPE_API_PROTOCOL ?? 'http',
+    };
+  } else if (e.STRIPE_API_PORT || e.STRIPE_API_PROTOCOL) {
+    throw new ConfigError(
+      'Invalid configuration:\n  STRIPE_API_HOST: required when STRIPE_API_PORT or STRIPE_API_PROTOCOL is set',
+    );
+  }
+  return {
+    secretKey: e.STRIPE_SECRET_KEY ?? LOCAL_PAYMENT_SECRET_KEY,
+    webhookSecret: e.STRIPE_WEBHOOK_SECRET ?? LOCAL_WEBHOOK_SECRET,
+    ...(api ? { api } : {}),
+  };
+}
 
 export function loadConfig(source: NodeJS.ProcessEnv = process.env, version = '0.0.0'): AppConfig {
   const parsed = EnvSchema.safeParse(source);
@@ -107,6 +162,8 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env, version = '0
       from: e.MAIL_FROM,
     },
     inboxPort: e.GLOAMING_INBOX_PORT,
+    paymentsFakePort: e.GLOAMING_PAYMENTS_FAKE_PORT,
+    payments: paymentsConfig(e, startFakes),
     signInThrottle: {
       maxPerAccount: e.GLOAMING_SIGNIN_MAX_PER_ACCOUNT,
       maxPerIp: e.GLOAMING_SIGNIN_MAX_PER_IP,
