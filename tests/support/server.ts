@@ -10,6 +10,8 @@ const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 export interface RunningServer {
   baseUrl: string;
   inboxUrl: string;
+  /** Base URL of the local payment-provider fake (REST under /v1, test payment page under /pay/). */
+  paymentsUrl: string;
   dataDir: string;
   output: () => string;
   stop: () => Promise<void>;
@@ -42,7 +44,7 @@ export async function freePorts(count: number): Promise<number[]> {
  */
 export async function startBuiltServer(env: Record<string, string> = {}): Promise<RunningServer> {
   const dataDir = mkdtempSync(join(tmpdir(), 'gloaming-e2e-'));
-  const [port, smtpPort, inboxPort] = (await freePorts(3)) as [number, number, number];
+  const [port, smtpPort, inboxPort, paymentsPort] = (await freePorts(4)) as [number, number, number, number];
   let out = '';
   const child: ChildProcess = spawn(process.execPath, [join(repoRoot, 'apps/api/dist/main.js')], {
     cwd: repoRoot,
@@ -56,6 +58,7 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
       DATA_DIR: dataDir,
       GLOAMING_SMTP_CATCHER_PORT: String(smtpPort),
       GLOAMING_INBOX_PORT: String(inboxPort),
+      GLOAMING_PAYMENTS_FAKE_PORT: String(paymentsPort),
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -78,6 +81,7 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
   return {
     baseUrl,
     inboxUrl: `http://127.0.0.1:${inboxPort}`,
+    paymentsUrl: `http://127.0.0.1:${paymentsPort}`,
     dataDir,
     output: () => out,
     stop: async () => {
