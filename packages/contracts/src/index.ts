@@ -14,5 +14,6 @@ export * from './design-settings';
 export * from './firm-settings';
 export * from './figures';
 export * from './activity';
+export * from './deposits';
 export * from './portal';
 export * from './jobs';
