@@ -24,6 +24,7 @@ import { circuitsRouter } from './modules/circuits/router';
 import { figuresRouter } from './modules/figures/router';
 import { firmSettingsRouter } from './modules/firm-settings/router';
 import { activityRouters } from './modules/activity/router';
+import { depositsRouters, PAYMENT_WEBHOOK_PATH, paymentWebhookBodyParser } from './modules/deposits/router';
 
 export interface CreateAppOptions extends AppDeps {
   /** Built front ends to serve; omitted in api-only tests. */
@@ -85,8 +86,9 @@ export function createApp(options: CreateAppOptions): GloamingApp {
 
   const api = express.Router();
   api.use('/api/quotes', quoteBodyParser); // whole estimates are larger than 1 MB
+  api.use(PAYMENT_WEBHOOK_PATH, paymentWebhookBodyParser); // the signed bytes, read raw before the JSON parser
   api.use(express.json({ limit: '1mb' }));
-  api.use(checkOrigin([new URL(options.config.publicUrl).host]));
+  api.use(checkOrigin([new URL(options.config.publicUrl).host], [{ method: 'POST', path: PAYMENT_WEBHOOK_PATH }]));
   api.use((_req, res, next) => {
     const em = options.orm.em.fork();
     res.locals.em = em;
@@ -113,6 +115,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   api.use(figuresRouter(deps, routes));
   api.use(firmSettingsRouter(deps, routes));
   for (const r of activityRouters(deps, routes)) api.use(r);
+  for (const r of depositsRouters(deps, routes)) api.use(r);
   api.use('/api', apiNotFound);
   app.use(api);
 

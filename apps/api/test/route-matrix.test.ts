@@ -13,6 +13,7 @@ import { createQuoteFixture } from './quote-fixtures';
 import { createCatalogueFixture } from './catalogue-fixtures';
 import { createQuoteMediaFixture } from './image-fixtures';
 import { createCircuitFixture } from './circuit-fixtures';
+import { createDepositPaymentFixture } from './deposit-fixtures';
 
 let t: TestServer;
 let quoteA: string;
@@ -23,6 +24,8 @@ let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let circuitA: string;
 let circuitB: string;
+let paymentA: string;
+let paymentB: string;
 beforeAll(async () => {
   t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
   quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
@@ -33,6 +36,8 @@ beforeAll(async () => {
   catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
   circuitA = (await createCircuitFixture(t.orm.em.fork(), t.firmA, quoteA)).circuit.id;
   circuitB = (await createCircuitFixture(t.orm.em.fork(), t.firmB, quoteB)).circuit.id;
+  paymentA = await createDepositPaymentFixture(t.orm.em.fork(), t.firmA, quoteA);
+  paymentB = await createDepositPaymentFixture(t.orm.em.fork(), t.firmB, quoteB);
 });
 afterAll(async () => t.close());
 
@@ -66,8 +71,8 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
   if (route.path.startsWith('/api/quotes/:id'))
     return {
-      own: { id: quoteA, revisionNumber: '1', ...mediaA, circuitId: circuitA },
-      foreign: { id: quoteB, revisionNumber: '1', ...mediaB, circuitId: circuitB },
+      own: { id: quoteA, revisionNumber: '1', ...mediaA, circuitId: circuitA, paymentId: paymentA },
+      foreign: { id: quoteB, revisionNumber: '1', ...mediaB, circuitId: circuitB, paymentId: paymentB },
     };
   if (route.path.startsWith('/api/customers/:id'))
     return {
@@ -173,6 +178,11 @@ describe('route x role x firm matrix', () => {
       'PUT /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'DELETE /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'POST /api/quotes/:id/revisions/:revisionNumber/circuit-suggestions': 'owner,estimator',
+      'GET /api/portal/:token/deposit': 'public',
+      'POST /api/portal/:token/deposit/checkout': 'public',
+      'POST /api/payments/webhook': 'public',
+      'GET /api/quotes/:id/deposits': 'owner,estimator',
+      'POST /api/quotes/:id/deposits/:paymentId/refund': 'owner',
     });
   });
 

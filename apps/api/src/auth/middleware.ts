@@ -43,15 +43,24 @@ export function requireAuth(roles: readonly Role[]): RequestHandler {
 
 const STATE_CHANGING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
+/** A route that is exempt from the Origin check: exact method and path, nothing under it. */
+export interface OriginExemption {
+  method: 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  path: string;
+}
+
 /**
  * CSRF defence for cookie sessions: a state-changing request that carries an Origin header
  * must come from this site (the Host it was sent to, or the configured public origin).
  * Requests without Origin come from non-browser clients, which cannot carry a victim's
  * cookie; JSON bodies also require a CORS preflight cross-site, which we never grant.
+ * `exempt` lists server-to-server routes authenticated otherwise (the payment provider's
+ * signed webhook): matched on the exact method and path only.
  */
-export function checkOrigin(allowedHosts: string[]): RequestHandler {
+export function checkOrigin(allowedHosts: string[], exempt: readonly OriginExemption[] = []): RequestHandler {
   return (req, _res, next) => {
     if (!STATE_CHANGING.has(req.method)) return next();
+    if (exempt.some((e) => e.method === req.method && e.path === req.path)) return next();
     const origin = req.headers.origin;
     if (!origin) return next();
     const host = req.headers.host;
