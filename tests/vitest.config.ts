@@ -2,7 +2,7 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   test: {
-    include: ['e2e/**/*.test.ts'],
+    include: ['e2e/**/*.test.ts', 'load/**/*.test.ts'],
     testTimeout: 60_000,
     hookTimeout: 60_000,
     fileParallelism: false,
