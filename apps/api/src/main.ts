@@ -13,6 +13,7 @@ import type { PaymentFake } from '@gloaming/fakes';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
 import { createSmtpMailer } from './mail/mailer';
+import { startExpirySweep } from './modules/portal/expiry-sweep';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const appsDir = resolve(here, '../..');
@@ -108,6 +109,8 @@ async function main(): Promise<void> {
   }
   console.log(lines.join('\n') + '\n');
 
+  const stopExpirySweep = startExpirySweep(orm, console);
+
   let closing = false;
   const shutdown = async (signal: string) => {
     if (closing) return;
@@ -117,6 +120,7 @@ async function main(): Promise<void> {
     const timer = setTimeout(() => server.closeAllConnections(), 5000);
     await new Promise<void>((r) => server.close(() => r()));
     clearTimeout(timer);
+    stopExpirySweep();
     mailer.close();
     await stopFakes?.();
     await orm.close(true);

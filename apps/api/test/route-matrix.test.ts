@@ -13,6 +13,7 @@ import { createQuoteFixture } from './quote-fixtures';
 import { createCatalogueFixture } from './catalogue-fixtures';
 import { createQuoteMediaFixture } from './image-fixtures';
 import { createCircuitFixture } from './circuit-fixtures';
+import { createPortalLinkFixture } from './portal-fixtures';
 import { createDepositPaymentFixture } from './deposit-fixtures';
 
 let t: TestServer;
@@ -24,10 +25,11 @@ let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let circuitA: string;
 let circuitB: string;
+let portalTokenA: string;
 let paymentA: string;
 let paymentB: string;
 beforeAll(async () => {
-  t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
+  t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000', GLOAMING_PORTAL_MAX_FAILED_PER_IP: '10000' });
   quoteA = (await createQuoteFixture(t.orm.em.fork(), t.firmA)).quote.id;
   quoteB = (await createQuoteFixture(t.orm.em.fork(), t.firmB)).quote.id;
   mediaA = await createQuoteMediaFixture(t.orm.em.fork(), t.firmA.firm.id, quoteA, t.config.dataDir);
@@ -36,6 +38,7 @@ beforeAll(async () => {
   catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
   circuitA = (await createCircuitFixture(t.orm.em.fork(), t.firmA, quoteA)).circuit.id;
   circuitB = (await createCircuitFixture(t.orm.em.fork(), t.firmB, quoteB)).circuit.id;
+  portalTokenA = await createPortalLinkFixture(t.orm.em.fork(), t.firmA);
   paymentA = await createDepositPaymentFixture(t.orm.em.fork(), t.firmA, quoteA);
   paymentB = await createDepositPaymentFixture(t.orm.em.fork(), t.firmB, quoteB);
 });
@@ -69,6 +72,12 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
   if (route.params.length === 0) return { own: {}, foreign: {} };
   if (route.path.startsWith('/api/users/:id'))
     return { own: { id: t.firmA.users.installer.id }, foreign: { id: t.firmB.users.installer.id } };
+  // A portal link is its own key: "own" is a working link of firm A, "foreign" a link that does not exist.
+  if (route.path.startsWith('/api/portal/:token'))
+    return {
+      own: { token: portalTokenA, photoId: '00000000-0000-4000-8000-000000000000' },
+      foreign: { token: 'no-such-link', photoId: '00000000-0000-4000-8000-000000000000' },
+    };
   if (route.path.startsWith('/api/quotes/:id'))
     return {
       own: { id: quoteA, revisionNumber: '1', ...mediaA, circuitId: circuitA, paymentId: paymentA },
@@ -178,6 +187,16 @@ describe('route x role x firm matrix', () => {
       'PUT /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'DELETE /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'POST /api/quotes/:id/revisions/:revisionNumber/circuit-suggestions': 'owner,estimator',
+      'GET /api/portal/:token': 'public',
+      'POST /api/portal/:token/totals': 'public',
+      'POST /api/portal/:token/questions': 'public',
+      'POST /api/portal/:token/approval': 'public',
+      'POST /api/portal/:token/decline': 'public',
+      'GET /api/portal/:token/pdf': 'public',
+      'GET /api/portal/:token/photos/:photoId': 'public',
+      'GET /api/quotes/:id/messages': 'owner,estimator',
+      'POST /api/quotes/:id/messages': 'owner,estimator',
+      'GET /api/quotes/:id/decision': 'owner,estimator',
       'GET /api/portal/:token/deposit': 'public',
       'POST /api/portal/:token/deposit/checkout': 'public',
       'POST /api/payments/webhook': 'public',

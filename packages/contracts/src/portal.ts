@@ -173,9 +173,8 @@ export const PortalApprovalRequest = z.object({
   signedName: z
     .string()
     .trim()
-    .min(2, 'Type your full name to approve.')
     .max(200, 'At most 200 characters.')
-    .refine((name) => /\p{L}/u.test(name), 'Type your full name to approve.'),
+    .refine((name) => name.length >= 2 && /\p{L}/u.test(name), 'Type your full name to approve.'),
   termsAccepted: z.literal(true, 'Tick the box to accept the terms.'),
 });
 export type PortalApprovalRequest = z.infer<typeof PortalApprovalRequest>;
