@@ -13,6 +13,7 @@ import { EstimateGrid, previewContent, type CellDraft } from './estimate-grid';
 import { TotalsPanel } from './totals-panel';
 import { QuotePhotosPanel } from '../../photos/components/quote-photos-panel';
 import { QuoteSendControls } from '../../quote-sending/components/quote-send-controls';
+import { QuoteDepositsPanel } from '../../deposits/components/quote-deposits-panel';
 
 /** The engine's totals, or null when the document is one the engine refuses (shown as a notice). */
 function engineTotals(content: EstimateContent, revision: QuoteRevisionView): QuoteTotals | null {
@@ -194,6 +195,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
         <div className="flex min-h-0 flex-col gap-3 overflow-y-auto">
           {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} adjustments={{ content: editor.content, onChange: editor.change, firmDepositBp: settings.depositPercentBp, readOnly }} />}
           {user.role === 'installer' ? null : <QuotePhotosPanel quoteId={quote.id} />}
+          {user.role === 'installer' ? null : <QuoteDepositsPanel quoteId={quote.id} locale={settings.locale} canRefund={user.role === 'owner'} />}
           <KeyHelp />
         </div>
       </div>
