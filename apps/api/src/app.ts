@@ -21,6 +21,7 @@ import { photosRouter } from './modules/photos/router';
 import { quotePdfRouter } from './modules/quote-pdf/router';
 import { quoteSendingRouter } from './modules/quote-sending/router';
 import { circuitsRouter } from './modules/circuits/router';
+import { jobsRouter } from './modules/jobs/router';
 import { portalRouter } from './modules/portal/router';
 import { figuresRouter } from './modules/figures/router';
 import { firmSettingsRouter } from './modules/firm-settings/router';
@@ -113,6 +114,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   api.use(quotePdfRouter(deps, routes));
   api.use(quoteSendingRouter(deps, routes));
   api.use(circuitsRouter(deps, routes));
+  api.use(jobsRouter(deps, routes));
   for (const r of portalRouter(deps, routes)) api.use(r);
   api.use(figuresRouter(deps, routes));
   api.use(firmSettingsRouter(deps, routes));

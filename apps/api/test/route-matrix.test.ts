@@ -13,6 +13,7 @@ import { createQuoteFixture } from './quote-fixtures';
 import { createCatalogueFixture } from './catalogue-fixtures';
 import { createQuoteMediaFixture } from './image-fixtures';
 import { createCircuitFixture } from './circuit-fixtures';
+import { createJobFixture } from './job-fixtures';
 import { createPortalLinkFixture } from './portal-fixtures';
 import { createDepositPaymentFixture } from './deposit-fixtures';
 
@@ -25,6 +26,8 @@ let catalogueA: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let catalogueB: Awaited<ReturnType<typeof createCatalogueFixture>>;
 let circuitA: string;
 let circuitB: string;
+let jobA: Awaited<ReturnType<typeof createJobFixture>>;
+let jobB: Awaited<ReturnType<typeof createJobFixture>>;
 let portalTokenA: string;
 let paymentA: string;
 let paymentB: string;
@@ -38,6 +41,8 @@ beforeAll(async () => {
   catalogueB = await createCatalogueFixture(t.orm.em.fork(), t.firmB, t.config.dataDir);
   circuitA = (await createCircuitFixture(t.orm.em.fork(), t.firmA, quoteA)).circuit.id;
   circuitB = (await createCircuitFixture(t.orm.em.fork(), t.firmB, quoteB)).circuit.id;
+  jobA = await createJobFixture(t.orm.em.fork(), t.firmA);
+  jobB = await createJobFixture(t.orm.em.fork(), t.firmB);
   portalTokenA = await createPortalLinkFixture(t.orm.em.fork(), t.firmA);
   paymentA = await createDepositPaymentFixture(t.orm.em.fork(), t.firmA, quoteA);
   paymentB = await createDepositPaymentFixture(t.orm.em.fork(), t.firmB, quoteB);
@@ -82,6 +87,11 @@ function paramsFor(route: RegisteredRoute): { own: Record<string, string>; forei
     return {
       own: { id: quoteA, revisionNumber: '1', ...mediaA, circuitId: circuitA, paymentId: paymentA },
       foreign: { id: quoteB, revisionNumber: '1', ...mediaB, circuitId: circuitB, paymentId: paymentB },
+    };
+  if (route.path.startsWith('/api/jobs/:id'))
+    return {
+      own: { id: jobA.quote.id, circuitId: jobA.circuit.id },
+      foreign: { id: jobB.quote.id, circuitId: jobB.circuit.id },
     };
   if (route.path.startsWith('/api/customers/:id'))
     return {
@@ -187,6 +197,11 @@ describe('route x role x firm matrix', () => {
       'PUT /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'DELETE /api/quotes/:id/revisions/:revisionNumber/circuits/:circuitId': 'owner,estimator',
       'POST /api/quotes/:id/revisions/:revisionNumber/circuit-suggestions': 'owner,estimator',
+      'GET /api/jobs': 'owner,estimator,installer',
+      'GET /api/jobs/:id': 'owner,estimator,installer',
+      'GET /api/jobs/:id/pack.pdf': 'owner,estimator,installer',
+      'PUT /api/jobs/:id/circuits/:circuitId/as-wired': 'owner,estimator,installer',
+      'PUT /api/jobs/:id/circuits/:circuitId/commissioning': 'owner,estimator,installer',
       'GET /api/portal/:token': 'public',
       'POST /api/portal/:token/totals': 'public',
       'POST /api/portal/:token/questions': 'public',

@@ -1,9 +1,16 @@
 import { Worker } from 'node:worker_threads';
+import type { InstallerPackPdfModel } from './installer-pack-model';
 import type { QuotePdfModel } from './pdf-model';
 
-/** Turns a quote's PDF model into bytes. */
+/** A document for the worker: the homeowner's quote or the installer's pack. */
+export type PdfJob = { document: 'quote'; model: QuotePdfModel } | { document: 'installer-pack'; model: InstallerPackPdfModel };
+
+/** Turns a PDF model into bytes. */
 export interface PdfRenderer {
+  /** The quote PDF. */
   render(model: QuotePdfModel): Promise<Buffer>;
+  /** The installer's pack PDF. */
+  renderInstallerPack(model: InstallerPackPdfModel): Promise<Buffer>;
   close(): Promise<void>;
 }
 
@@ -47,16 +54,19 @@ export function createWorkerPdfRenderer(): PdfRenderer {
     return w;
   }
 
+  const send = (job: PdfJob): Promise<Buffer> => {
+    worker ??= start();
+    const id = next++;
+    const w = worker;
+    return new Promise<Buffer>((resolve, reject) => {
+      pending.set(id, { resolve, reject });
+      w.postMessage({ id, job });
+    });
+  };
+
   return {
-    render(model) {
-      worker ??= start();
-      const id = next++;
-      const w = worker;
-      return new Promise<Buffer>((resolve, reject) => {
-        pending.set(id, { resolve, reject });
-        w.postMessage({ id, model });
-      });
-    },
+    render: (model) => send({ document: 'quote', model }),
+    renderInstallerPack: (model) => send({ document: 'installer-pack', model }),
     async close() {
       const w = worker;
       worker = null;

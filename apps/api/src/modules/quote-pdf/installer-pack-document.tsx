@@ -1,0 +1,367 @@
+import { Circle, Document, G, Line, Page, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import { PDF_FONT } from './fonts';
+import type { InstallerPackPdfModel, PackPdfCircuit, PackPdfDiagram, PackPdfTable } from './installer-pack-model';
+
+/** The installer's pack: the quote's dusk blue and lamp amber, sized for a clipboard on site. */
+const ink = '#1b2552';
+const muted = '#5a607a';
+const rule = '#dcdfe9';
+const wash = '#f3f5fc';
+const lamp = '#b86c0c';
+const lampWash = '#fff8ec';
+const alarm = '#a3261b';
+
+const s = StyleSheet.create({
+  page: { fontFamily: PDF_FONT, fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 52, paddingHorizontal: 40 },
+  header: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-start' },
+  firm: { fontSize: 14, fontWeight: 700 },
+  docTitle: { fontSize: 18, fontWeight: 600, textAlign: 'right' },
+  muted: { color: muted },
+  accent: { height: 3, backgroundColor: lamp, width: 64, marginTop: 10, marginBottom: 12 },
+  caution: {
+    borderWidth: 1,
+    borderColor: lamp,
+    backgroundColor: lampWash,
+    borderRadius: 4,
+    padding: 8,
+    marginBottom: 12,
+  },
+  cautionTitle: { fontWeight: 700, marginBottom: 2 },
+  parties: { flexDirection: 'row', gap: 12, marginBottom: 12 },
+  party: { flex: 1, backgroundColor: wash, borderRadius: 4, padding: 8 },
+  label: { fontSize: 7.5, fontWeight: 600, color: muted, textTransform: 'uppercase', letterSpacing: 0.6, marginBottom: 3 },
+  h2: { fontSize: 13, fontWeight: 700, marginTop: 6, marginBottom: 6 },
+  h3: { fontSize: 10, fontWeight: 600, marginTop: 8, marginBottom: 3 },
+  table: { marginBottom: 6 },
+  head: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: ink, paddingBottom: 2 },
+  headCell: { fontSize: 7.5, fontWeight: 600, color: muted, textTransform: 'uppercase', letterSpacing: 0.4 },
+  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 3 },
+  cell: { paddingRight: 6 },
+  step: { flexDirection: 'row', marginBottom: 3 },
+  stepNo: { width: 16, color: muted },
+  readingRow: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 5, alignItems: 'center' },
+  box: {
+    width: 70,
+    height: 14,
+    borderWidth: 0.75,
+    borderColor: muted,
+    borderRadius: 2,
+    paddingHorizontal: 3,
+    justifyContent: 'center',
+  },
+  flag: { color: alarm, fontWeight: 700, width: 34, textAlign: 'center' },
+  tick: {
+    width: 10,
+    height: 10,
+    borderWidth: 0.75,
+    borderColor: ink,
+    marginRight: 6,
+    alignItems: 'center',
+    justifyContent: 'center',
+  },
+  checkRow: { flexDirection: 'row', alignItems: 'center', marginBottom: 4 },
+  wiredSafe: { borderLeftWidth: 3, borderLeftColor: ink, paddingLeft: 6, marginTop: 4 },
+  wiredUnsafe: { borderLeftWidth: 3, borderLeftColor: alarm, paddingLeft: 6, marginTop: 4 },
+  footer: {
+    position: 'absolute',
+    bottom: 24,
+    left: 40,
+    right: 40,
+    flexDirection: 'row',
+    justifyContent: 'space-between',
+    fontSize: 7.5,
+    color: muted,
+  },
+});
+
+/** Column widths: the first column takes what the others leave. */
+function widths(head: readonly string[]): (number | undefined)[] {
+  const fixed: Record<string, number> = {
+    Terminal: 46,
+    Joint: 140,
+    Code: 70,
+    Quantity: 64,
+    Where: 40,
+    'Run m': 40,
+    'Cut m': 40,
+    'Total cut': 60,
+    'Expected V': 60,
+    'Drop %': 44,
+    Circuit: 110,
+    Cable: 120,
+  };
+  return head.map((h, i) => (i === 0 && !(h in fixed) ? undefined : fixed[h]));
+}
+
+function Table({ table }: { table: PackPdfTable }) {
+  const w = widths(table.head);
+  const cellStyle = (i: number) => (w[i] === undefined ? [s.cell, { flex: 1 }] : [s.cell, { width: w[i] }]);
+  return (
+    <View style={s.table}>
+      <Text style={s.h3}>{table.title}</Text>
+      <View style={s.head} fixed={false}>
+        {table.head.map((h, i) => (
+          <Text key={h} style={[...cellStyle(i), s.headCell]}>
+            {h}
+          </Text>
+        ))}
+      </View>
+      {table.rows.map((row, r) => (
+        <View key={r} style={s.row} wrap={false}>
+          {row.map((c, i) => (
+            <Text key={i} style={cellStyle(i)}>
+              {c}
+            </Text>
+          ))}
+        </View>
+      ))}
+    </View>
+  );
+}
+
+const FIT_W = 48;
+const BLOCK_GAP = 56;
+const TOP = 34;
+const BLOCK_H = 60;
+const FWD_Y = 54;
+const RET_Y = 82;
+const FIT_Y = 150;
+const svgFont = { fontFamily: PDF_FONT, fontSize: 9 };
+
+/**
+ * The string diagram with react-pdf's Svg primitives, in the designer's visual language:
+ * driver, blocks with their fittings, the + string solid, the return leg dashed and marked −,
+ * links between blocks. Polarity is in the marks and line style, never in colour alone.
+ */
+function Diagram({ d }: { d: PackPdfDiagram }) {
+  const ws = d.blocks.map((b) => Math.max(100, b.fittings.length * FIT_W + 16));
+  const xs: number[] = [];
+  let x = 120;
+  for (const w of ws) {
+    xs.push(x);
+    x += w + BLOCK_GAP;
+  }
+  const width = x - BLOCK_GAP + 10;
+  const height = FIT_Y + 40;
+  const shown = Math.min(515, width);
+  return (
+    <Svg viewBox={`0 0 ${width} ${height}`} style={{ width: shown, height: (shown * height) / width, marginVertical: 4 }}>
+      <G {...svgFont}>
+        <Line x1={6} y1={10} x2={30} y2={10} stroke={ink} strokeWidth={2.2} />
+        <Text x={34} y={13} fill={ink}>
+          + string (forward)
+        </Text>
+        <Line x1={130} y1={10} x2={154} y2={10} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+        <Text x={158} y={13} fill={ink}>
+          − return leg
+        </Text>
+        <Rect x={6} y={TOP} width={84} height={BLOCK_H} rx={5} fill="none" stroke={ink} strokeWidth={1.8} />
+        <Text x={48} y={TOP + 18} fill={ink} textAnchor="middle">
+          Driver
+        </Text>
+        <Text x={48} y={TOP + 32} fill={muted} textAnchor="middle">
+          {d.driverName.length > 16 ? `${d.driverName.slice(0, 15)}…` : d.driverName}
+        </Text>
+        <Text x={84} y={FWD_Y + 3} fill={ink} textAnchor="end">
+          +
+        </Text>
+        <Text x={84} y={RET_Y + 3} fill={ink} textAnchor="end">
+          −
+        </Text>
+        <Line x1={90} y1={FWD_Y} x2={xs[0]!} y2={FWD_Y} stroke={ink} strokeWidth={2.2} />
+        <Line x1={90} y1={RET_Y} x2={xs[0]!} y2={RET_Y} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+        {d.blocks.map((b, j) => {
+          const bx = xs[j]!;
+          const bw = ws[j]!;
+          const next = xs[j + 1];
+          const link = d.links[j];
+          return (
+            <G key={b.number}>
+              <Rect x={bx} y={TOP} width={bw} height={BLOCK_H} rx={3} fill="none" stroke={ink} strokeWidth={1.8} />
+              <Text x={bx + 5} y={TOP + 12} fill={ink}>
+                {`Block ${b.number}`}
+              </Text>
+              <Line x1={bx} y1={RET_Y} x2={bx + bw} y2={RET_Y} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+              {b.fittings.map((n, k) => {
+                const fx = bx + 16 + k * FIT_W + FIT_W / 2 - 8;
+                const label = d.fittingLabels[n - 1] ?? '';
+                return (
+                  <G key={n}>
+                    <Line x1={fx - 6} y1={TOP + BLOCK_H} x2={fx - 6} y2={FIT_Y - 11} stroke={ink} strokeWidth={1.5} />
+                    <Line
+                      x1={fx + 6}
+                      y1={TOP + BLOCK_H}
+                      x2={fx + 6}
+                      y2={FIT_Y - 11}
+                      stroke={ink}
+                      strokeWidth={1.5}
+                      strokeDasharray="3 2"
+                    />
+                    <Text x={fx - 9} y={FIT_Y - 15} fill={ink} textAnchor="end">
+                      +
+                    </Text>
+                    <Text x={fx + 9} y={FIT_Y - 15} fill={ink}>
+                      −
+                    </Text>
+                    <Circle cx={fx} cy={FIT_Y} r={11} fill="none" stroke={ink} strokeWidth={1.8} />
+                    <Text x={fx} y={FIT_Y + 3} fill={ink} textAnchor="middle">
+                      {String(n)}
+                    </Text>
+                    <Text x={fx} y={FIT_Y + 24} fill={muted} textAnchor="middle">
+                      {label.length > 10 ? `${label.slice(0, 9)}…` : label}
+                    </Text>
+                  </G>
+                );
+              })}
+              {next !== undefined && (
+                <G>
+                  <Line x1={bx + bw} y1={FWD_Y} x2={next} y2={FWD_Y} stroke={ink} strokeWidth={2.2} />
+                  <Line x1={bx + bw} y1={RET_Y} x2={next} y2={RET_Y} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+                  <Text x={(bx + bw + next) / 2} y={FWD_Y - 5} fill={muted} textAnchor="middle">
+                    {`link ${link?.number ?? j + 1}${link?.lengthM ? ` · ${link.lengthM} m` : ''}`}
+                  </Text>
+                </G>
+              )}
+            </G>
+          );
+        })}
+      </G>
+    </Svg>
+  );
+}
+
+function CircuitSection({ c, index }: { c: PackPdfCircuit; index: number }) {
+  return (
+    <View break={index > 0}>
+      <Text style={s.h2}>{`Circuit ${index + 1}. ${c.title}`}</Text>
+      <Text style={s.muted}>{`${c.kind} · ${c.power} · ${c.summary}`}</Text>
+      {c.diagram && <Diagram d={c.diagram} />}
+      <Table table={c.pick} />
+      {c.runs && <Table table={c.runs} />}
+      {c.schedules.map((t) => (
+        <Table key={t.title} table={t} />
+      ))}
+      {c.steps.length > 0 && (
+        <View wrap>
+          <Text style={s.h3}>Installer’s steps</Text>
+          {c.steps.map((step, i) => (
+            <View key={i} style={s.step} wrap={false}>
+              <Text style={s.stepNo}>{`${i + 1}.`}</Text>
+              <Text style={{ flex: 1 }}>{step}</Text>
+            </View>
+          ))}
+        </View>
+      )}
+      {c.asWired && (
+        <View style={c.asWired.safe ? s.wiredSafe : s.wiredUnsafe} wrap={false}>
+          <Text style={s.h3}>{c.asWired.safe ? 'As wired: safe to power up' : 'As wired: NOT safe to power up. Change:'}</Text>
+          {c.asWired.lines.map((l, i) => (
+            <Text key={i}>{`• ${l}`}</Text>
+          ))}
+        </View>
+      )}
+      <View wrap={false}>
+        <Text style={s.h3}>Commissioning</Text>
+        <View style={s.head}>
+          <Text style={[s.headCell, { flex: 1 }]}>Reading</Text>
+          <Text style={[s.headCell, { width: 60 }]}>Expected</Text>
+          <Text style={[s.headCell, { width: 80 }]}>Range</Text>
+          <Text style={[s.headCell, { width: 70 }]}>Measured</Text>
+          <Text style={[s.headCell, { width: 34 }]}> </Text>
+        </View>
+        {c.readings.map((r) => (
+          <View key={r.label} style={s.readingRow}>
+            <Text style={{ flex: 1, paddingRight: 6 }}>{r.label}</Text>
+            <Text style={{ width: 60 }}>{r.expected}</Text>
+            <Text style={{ width: 80 }}>{r.range}</Text>
+            <View style={s.box}>
+              <Text>{r.measured}</Text>
+            </View>
+            <Text style={s.flag}>{r.flag}</Text>
+          </View>
+        ))}
+        <View style={{ marginTop: 6 }}>
+          {c.checks.map((k) => (
+            <View key={k.label} style={s.checkRow}>
+              <View style={[s.tick, k.done ? { backgroundColor: ink } : {}]} />
+              <Text style={{ flex: 1 }}>{k.done ? `${k.label} (done)` : k.label}</Text>
+            </View>
+          ))}
+        </View>
+        {c.note ? <Text style={s.muted}>{`Note: ${c.note}`}</Text> : null}
+      </View>
+    </View>
+  );
+}
+
+function Footer({ reference }: { reference: string }) {
+  return (
+    <Text
+      style={s.footer}
+      fixed
+      render={({ pageNumber, totalPages }) => `${reference} installer’s pack · no prices · page ${pageNumber} of ${totalPages}`}
+    />
+  );
+}
+
+export function InstallerPackDocument({ model }: { model: InstallerPackPdfModel }) {
+  return (
+    <Document
+      title={`${model.reference} installer’s pack`}
+      author={model.firmName}
+      subject={`Installer’s pack for ${model.title || model.reference}`}
+      creator="Gloaming"
+      producer="Gloaming"
+    >
+      <Page size="A4" style={s.page}>
+        <View style={s.header}>
+          <View>
+            <Text style={s.firm}>{model.firmName}</Text>
+            <Text style={s.muted}>{`Printed ${model.printedOn}`}</Text>
+          </View>
+          <View>
+            <Text style={s.docTitle}>Installer’s pack</Text>
+            <Text
+              style={[s.muted, { textAlign: 'right' }]}
+            >{`${model.reference} · revision ${model.revision} · ${model.status}`}</Text>
+          </View>
+        </View>
+        <View style={s.accent} />
+        <View style={s.caution}>
+          <Text style={s.cautionTitle}>Electrical caution</Text>
+          <Text>{model.caution}</Text>
+        </View>
+        <View style={s.parties}>
+          <View style={s.party}>
+            <Text style={s.label}>Job</Text>
+            <Text style={{ fontWeight: 600 }}>{model.title || model.reference}</Text>
+            <Text>{model.customer.name}</Text>
+            {model.customer.phone ? <Text>{model.customer.phone}</Text> : null}
+          </View>
+          <View style={s.party}>
+            <Text style={s.label}>Site</Text>
+            {model.site.label ? <Text style={{ fontWeight: 600 }}>{model.site.label}</Text> : null}
+            {model.site.lines.map((l) => (
+              <Text key={l}>{l}</Text>
+            ))}
+            {model.site.accessNotes ? <Text style={s.muted}>{`Access: ${model.site.accessNotes}`}</Text> : null}
+          </View>
+        </View>
+        <Text style={s.h2}>Pick list: what to load</Text>
+        {model.loads.map((t) => (
+          <Table key={t.title} table={t} />
+        ))}
+        {model.circuits.length === 0 && <Text style={s.muted}>This job has no circuits designed yet.</Text>}
+        <Footer reference={model.reference} />
+      </Page>
+      {model.circuits.length > 0 && (
+        <Page size="A4" style={s.page}>
+          {model.circuits.map((c, i) => (
+            <CircuitSection key={i} c={c} index={i} />
+          ))}
+          <Footer reference={model.reference} />
+        </Page>
+      )}
+    </Document>
+  );
+}

@@ -1,0 +1,297 @@
+/**
+ * Jobs and the installer's pack: who reads them (owner, estimator, installer of the firm),
+ * that no response to them carries a price, cost or margin, the as-wired schedule with the
+ * wiring advice, commissioning readings, and the pack PDF.
+ * Trade rules behind the figures: the series rule of thumb and one terminal per joint
+ * (common practice, the block planner); 10 % cable slack (common practice, the takeoff's
+ * default); driver current ± 5 % and forward voltage ± 10 % (common practice).
+ */
+import { PDFParse } from 'pdf-parse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  JobListResponse,
+  JobPackResponse,
+  SaveAsWiredResponse,
+  SaveCommissioningResponse,
+  type AsWiredBlock,
+  type CcCircuitDesign,
+  type InstallerProduct,
+} from '@gloaming/contracts';
+import { evaluateCircuit, type DesignProduct } from '@gloaming/engine';
+import { startTestServer, type TestServer } from './harness';
+import { createJobFixture } from './job-fixtures';
+
+let t: TestServer;
+let installer: Awaited<ReturnType<TestServer['signIn']>>;
+let estimator: Awaited<ReturnType<TestServer['signIn']>>;
+let owner: Awaited<ReturnType<TestServer['signIn']>>;
+let installerB: Awaited<ReturnType<TestServer['signIn']>>;
+let job: Awaited<ReturnType<typeof createJobFixture>>;
+let jobB: Awaited<ReturnType<typeof createJobFixture>>;
+let draft: Awaited<ReturnType<typeof createJobFixture>>;
+let won: Awaited<ReturnType<typeof createJobFixture>>;
+
+beforeAll(async () => {
+  t = await startTestServer({ GLOAMING_SIGNIN_MAX_PER_IP: '10000', GLOAMING_SIGNIN_MAX_PER_ACCOUNT: '10000' });
+  job = await createJobFixture(t.orm.em.fork(), t.firmA, 'approved');
+  won = await createJobFixture(t.orm.em.fork(), t.firmA, 'won');
+  draft = await createJobFixture(t.orm.em.fork(), t.firmA, 'sent');
+  jobB = await createJobFixture(t.orm.em.fork(), t.firmB, 'approved');
+  installer = await t.signIn('installer');
+  estimator = await t.signIn('estimator');
+  owner = await t.signIn('owner');
+  installerB = await t.signIn('installer', 'B');
+});
+afterAll(async () => t.close());
+
+/** Every key anywhere in a JSON value. */
+function keysOf(value: unknown, out = new Set<string>()): Set<string> {
+  if (Array.isArray(value)) for (const v of value) keysOf(v, out);
+  else if (value && typeof value === 'object')
+    for (const [k, v] of Object.entries(value)) {
+      out.add(k);
+      keysOf(v, out);
+    }
+  return out;
+}
+const PRICE_KEY = /minor|price|cost|margin|markup|vat|deposit|^totals?$/i;
+
+function expectNoPrices(body: unknown) {
+  expect([...keysOf(body)].filter((k) => PRICE_KEY.test(k))).toEqual([]);
+  // the fixture's prices (spike £39.00 / cost £21.00, driver £52.00 / £28.00, flex £1.60 / £0.90, block £11.00 / £6.00)
+  const text = JSON.stringify(body);
+  for (const amount of ['3900', '2100', '5200', '2800', '1100', '£']) expect(text).not.toContain(amount);
+}
+
+async function pdfText(bytes: Buffer): Promise<string> {
+  const parser = new PDFParse({ data: new Uint8Array(bytes) });
+  try {
+    return (await parser.getText()).text;
+  } finally {
+    await parser.destroy();
+  }
+}
+function binary(res: { on: (e: string, cb: (c?: Buffer) => void) => void }, cb: (err: Error | null, body: Buffer) => void) {
+  const chunks: Buffer[] = [];
+  res.on('data', (c) => chunks.push(c!));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+}
+
+/** The designed schedule as the page starts it: each block's terminals as planned. */
+async function designedBlocks(): Promise<AsWiredBlock[]> {
+  const res = await installer.get(`/api/jobs/${job.quote.id}`);
+  const pack = JobPackResponse.parse(res.body);
+  const products: DesignProduct[] = pack.products.map(
+    (p: InstallerProduct) => ({ ...p, costMinor: 0, listPriceMinor: 0 }) as DesignProduct,
+  );
+  const plan = evaluateCircuit(pack.circuits[0]!.design as CcCircuitDesign, products, { profile: pack.profile }).blocks!;
+  return plan.blocks.map((b) => ({ terminals: b.terminals.map((x) => ({ conductors: [...x.conductors] })) }));
+}
+
+describe('GET /api/jobs', () => {
+  it("lists the firm's approved, deposit-paid and won jobs for an installer, never a sent quote or another firm's", async () => {
+    const res = await installer.get('/api/jobs');
+    expect(res.status).toBe(200);
+    const body = JobListResponse.parse(res.body);
+    const ids = body.jobs.map((j) => j.id).sort();
+    expect(ids).toEqual([job.quote.id, won.quote.id].sort());
+    expect(ids).not.toContain(draft.quote.id);
+    expect(ids).not.toContain(jobB.quote.id);
+    const mine = body.jobs.find((j) => j.id === job.quote.id)!;
+    expect(mine).toMatchObject({
+      status: 'approved',
+      customerName: 'Hollis Wren',
+      circuitCount: 1,
+      siteAddress: ['4 Larch Row', 'Eastwick'],
+    });
+    expectNoPrices(res.body);
+  });
+
+  it('answers estimators and owners the same, and nobody signed out', async () => {
+    expect((await estimator.get('/api/jobs')).status).toBe(200);
+    expect((await owner.get('/api/jobs')).status).toBe(200);
+    const { default: request } = await import('supertest');
+    expect((await request(t.app).get('/api/jobs')).status).toBe(401);
+  });
+});
+
+describe('GET /api/jobs/:id (the pack)', () => {
+  it('gives the installer the pick list by circuit and by bench/van, the design and the expected readings, with no prices', async () => {
+    const res = await installer.get(`/api/jobs/${job.quote.id}`);
+    expect(res.status).toBe(200);
+    const pack = JobPackResponse.parse(res.body);
+    expectNoPrices(res.body);
+    const c = pack.circuits[0]!;
+    expect(c).toMatchObject({
+      area: 'Front path',
+      name: 'Path string',
+      kind: 'constant-current',
+      powerName: 'Lantern driver 350 mA 20 W',
+    });
+    const q = Object.fromEntries(c.pick.items.map((i) => [i.code || i.name, i.quantity]));
+    // six spikes over two six-way blocks: block 1 takes four (five joints and the link), block 2 the other two
+    expect(q).toMatchObject({ 'OW-SP3': 6, 'OW-D350': 1, 'OW-G6': 2 });
+    // 10 m lead and 8 m link, plus 10 % slack
+    expect(c.pick.cuts.map((k) => [k.label, k.cutM])).toEqual([
+      ['Driver lead (driver to block 1)', 11],
+      ['Link 1 (block 1 to block 2)', 8.8],
+    ]);
+    expect(pack.loads.map((g) => g.place)).toEqual(['bench', 'van']);
+    expect(pack.loads[0]!.cableTotals).toEqual([
+      { productId: job.products.cable.id, code: 'OW-F15', name: 'Two-core flex 1.5 mm²', totalM: 19.8 },
+    ]);
+    const readings = Object.fromEntries(c.commissioning.readings.map((r) => [r.key, r]));
+    expect(readings['output-current']).toMatchObject({ expected: 0.35, min: 0.333, max: 0.368, status: 'not-entered' });
+    // six spikes at 3.0 V: 18 V of forward voltage, plus the cable drop
+    expect(readings['output-voltage']!.expected!).toBeGreaterThan(18);
+    expect(pack.caution).toContain('licensed electrician');
+    expect(c.asWired).toBeNull();
+  });
+
+  it('is a 404 for a quote that is not approved and for another firm’s job', async () => {
+    expect((await installer.get(`/api/jobs/${draft.quote.id}`)).status).toBe(404);
+    expect((await installer.get(`/api/jobs/${jobB.quote.id}`)).status).toBe(404);
+    expect((await installerB.get(`/api/jobs/${job.quote.id}`)).status).toBe(404);
+    expect((await installerB.get(`/api/jobs/${jobB.quote.id}`)).status).toBe(200);
+  });
+
+  it('keeps estimates from installers: they cannot read or edit the quote, its revision or its circuits', async () => {
+    expect((await installer.get(`/api/quotes/${job.quote.id}`)).status).toBe(403);
+    expect((await installer.get(`/api/quotes/${job.quote.id}/revisions/1`)).status).toBe(403);
+    expect((await installer.put(`/api/quotes/${job.quote.id}/revisions/1`).send({})).status).toBe(403);
+    expect((await installer.get(`/api/quotes/${job.quote.id}/revisions/1/circuits`)).status).toBe(403);
+    expect((await installer.get(`/api/quotes/${job.quote.id}/revisions/${job.revision.id}/pdf`)).status).toBe(403);
+  });
+});
+
+describe('PUT /api/jobs/:id/circuits/:circuitId/as-wired', () => {
+  const url = () => `/api/jobs/${job.quote.id}/circuits/${job.circuit.id}/as-wired`;
+
+  it('records a wrong termination, says it is not safe and exactly what to move, and keeps it with the job', async () => {
+    const blocks = await designedBlocks();
+    // block 2 holds fittings 5 and 6: T1 link core 1 (B) + 5 +, T2 5 − + 6 +, T3 6 − + link core 2 (B).
+    // The installer lands fitting 6's − on T2 with its own + (the return on the + joint).
+    expect(blocks[1]!.terminals.map((x) => x.conductors)).toEqual([
+      ['link:1/core:1/end:B', 'fitting:5+'],
+      ['fitting:5-', 'fitting:6+'],
+      ['fitting:6-', 'link:1/core:2/end:B'],
+    ]);
+    blocks[1]!.terminals[2]!.conductors = ['link:1/core:2/end:B'];
+    blocks[1]!.terminals[1]!.conductors.push('fitting:6-');
+    const res = await installer.put(url()).send({ version: null, blocks });
+    expect(res.status).toBe(200);
+    const { asWired } = SaveAsWiredResponse.parse(res.body);
+    expect(asWired.advice.safeToPowerUp).toBe(false);
+    expect(asWired.advice.changes).toEqual([
+      expect.objectContaining({
+        kind: 'move',
+        subject: 'block:2/terminal:2',
+        conductor: 'fitting:6-',
+        to: { block: 2, terminal: 3 },
+        message:
+          'Block 2 terminal 2: fitting 6 (Path light 6) − lands here, on the joint for fitting 5 (Path light 5) − and fitting 6 (Path light 6) +; move it to block 2 terminal 3 (with link cable 1 core 2 (end B)).',
+      }),
+    ]);
+    expect(asWired.advice.byTerminal['block:2/terminal:2']).toContain(asWired.advice.changes[0]!.message);
+    expect(asWired.recordedBy).toBe(t.firmA.users.installer.name || t.firmA.users.installer.email);
+    const pack = JobPackResponse.parse((await installer.get(`/api/jobs/${job.quote.id}`)).body);
+    expect(pack.circuits[0]!.asWired?.version).toBe(asWired.version);
+    expect(pack.circuits[0]!.asWired?.advice.safeToPowerUp).toBe(false);
+
+    // a stale version is a conflict; the fix, saved on the current version, is safe
+    expect((await installer.put(url()).send({ version: null, blocks })).status).toBe(409);
+    const fixed = await designedBlocks();
+    const ok = await estimator.put(url()).send({ version: asWired.version, blocks: fixed });
+    expect(ok.status).toBe(200);
+    const saved = SaveAsWiredResponse.parse(ok.body).asWired;
+    expect(saved.advice.safeToPowerUp).toBe(true);
+    expect(saved.advice.changes).toEqual([]);
+    expect((await owner.put(url()).send({ version: saved.version, blocks: fixed })).status).toBe(200);
+  });
+
+  it('answers bad input with field errors, an unknown circuit with 404, another firm with 404', async () => {
+    const bad = await installer.put(url()).send({ version: null, blocks: [{ terminals: 'T1' }] });
+    expect(bad.status).toBe(400);
+    expect(bad.headers['content-type']).toContain('application/problem+json');
+    expect(JSON.stringify(bad.body)).toContain('body.blocks.0.terminals');
+    expect((await installer.put(`/api/jobs/${job.quote.id}/circuits/${won.circuit.id}/as-wired`).send({})).status).toBe(404);
+    expect((await installerB.put(url()).send({ version: null, blocks: [] })).status).toBe(404);
+    expect((await installer.put(`/api/jobs/${draft.quote.id}/circuits/${draft.circuit.id}/as-wired`).send({})).status).toBe(404);
+  });
+});
+
+describe('PUT /api/jobs/:id/circuits/:circuitId/commissioning', () => {
+  const url = () => `/api/jobs/${won.quote.id}/circuits/${won.circuit.id}/commissioning`;
+
+  it('saves readings against the job and flags the ones out of range', async () => {
+    const res = await installer.put(url()).send({
+      version: null,
+      readings: { 'output-current': 0.351, 'output-voltage': 18.4, 'far-fitting-voltage': 2.2, 'insulation-resistance': 150 },
+      checks: { 'polarity-checked': true, 'seals-checked': true, 'not-a-check': true },
+      note: 'Spike 6 moved 300 mm to clear the tap.',
+    });
+    expect(res.status).toBe(200);
+    const { commissioning } = SaveCommissioningResponse.parse(res.body);
+    const status = Object.fromEntries(commissioning.readings.map((r) => [r.key, r.status]));
+    expect(status).toMatchObject({
+      'output-current': 'in-range',
+      'far-fitting-voltage': 'low',
+      'insulation-resistance': 'in-range',
+    });
+    expect(commissioning.flagged).toBeGreaterThanOrEqual(1);
+    expect(commissioning.findings.some((f) => f.code === 'reading-out-of-range' && f.message.includes('2.2 V is below'))).toBe(
+      true,
+    );
+    expect(commissioning.checks.filter((c) => c.done).map((c) => c.key)).toEqual(['polarity-checked', 'seals-checked']);
+    expect(commissioning.complete).toBe(false);
+    const pack = JobPackResponse.parse((await installer.get(`/api/jobs/${won.quote.id}`)).body);
+    expect(pack.circuits[0]!.commissioning).toMatchObject({
+      note: 'Spike 6 moved 300 mm to clear the tap.',
+      version: commissioning.version,
+    });
+    expectNoPrices(pack);
+
+    // the owner corrects the reading on the latest version
+    const again = await owner.put(url()).send({
+      version: commissioning.version,
+      readings: { 'far-fitting-voltage': 3.05 },
+      checks: {},
+      note: '',
+    });
+    expect(again.status).toBe(200);
+    expect(
+      SaveCommissioningResponse.parse(again.body).commissioning.readings.find((r) => r.key === 'far-fitting-voltage')!.status,
+    ).toBe('in-range');
+    expect((await estimator.put(url()).send({ version: 1, readings: {}, checks: {} })).status).toBe(409);
+  });
+
+  it('refuses a negative or non-numeric reading with the field named', async () => {
+    const res = await installer.put(url()).send({ version: null, readings: { 'output-voltage': -3 }, checks: {} });
+    expect(res.status).toBe(400);
+    expect(JSON.stringify(res.body)).toContain('cannot be negative');
+    const text = await installer.put(url()).send({ version: null, readings: { 'output-voltage': 'twelve' }, checks: {} });
+    expect(text.status).toBe(400);
+  });
+});
+
+describe('GET /api/jobs/:id/pack.pdf', () => {
+  it('renders the pack with the pick list, the terminal schedule, the readings and the caution, and no prices', async () => {
+    const res = await installer.get(`/api/jobs/${job.quote.id}/pack.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toContain('application/pdf');
+    expect(res.headers['content-disposition']).toContain('-installers-pack.pdf');
+    const text = await pdfText(res.body as Buffer);
+    expect(text).toContain('Installer’s pack');
+    expect(text).toContain('Pick list');
+    expect(text).toContain('Lantern driver 350 mA 20 W');
+    expect(text).toContain('Block 1');
+    expect(text).toMatch(/T1\s+driver\+/);
+    expect(text).toContain('link:1/core:2/end:B');
+    expect(text).toContain('Output current at the driver');
+    expect(text).toContain('licensed electrician');
+    // the as-wired record saved above: the last save was the corrected schedule
+    expect(text).toContain('As wired: safe to power up');
+    expect(text).not.toMatch(/£|\bcost\b|\bmargin\b|\bVAT\b/i);
+    expect((await installerB.get(`/api/jobs/${job.quote.id}/pack.pdf`)).status).toBe(404);
+  }, 30_000);
+});
