@@ -1,4 +1,4 @@
-import { Circuit, Product, type Quote, type QuoteRevision, newId, type EntityManager } from '@gloaming/db';
+import { Circuit, Product, type Quote, newId, type EntityManager } from '@gloaming/db';
 import type { FirmFixture } from '@gloaming/db/testing';
 import { evaluateCircuit } from '@gloaming/engine';
 import { presentProduct } from '../src/modules/catalogue/presenter';
