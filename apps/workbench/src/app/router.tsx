@@ -26,6 +26,8 @@ import { CustomerPage } from '../features/customers/components/customer-page';
 import { CustomersPage } from '../features/customers/components/customers-page';
 import { NewCustomerPage } from '../features/customers/components/new-customer-page';
 import { customerQueryFromSearch } from '../features/customers/customer-list-query';
+import { FiguresPage, figuresQueryFrom } from '../features/figures/components/figures-page';
+import { figuresQueryOptions } from '../features/figures/api/get-figures';
 import { RouteError } from './route-error';
 import { requireRole, requireUser, signedOutOnly } from './route-guards';
 
@@ -57,6 +59,15 @@ export function createRouter(queryClient: QueryClient) {
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/overview'));
             await queryClient.prefetchQuery(teamQueryOptions());
+            return null;
+          },
+        },
+        {
+          path: 'figures',
+          element: <FiguresPage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/figures'));
+            void queryClient.prefetchQuery(figuresQueryOptions(figuresQueryFrom(new URL(request.url).searchParams)));
             return null;
           },
         },

@@ -3,6 +3,7 @@ import type { Role } from '@gloaming/contracts';
 /** The screens that exist inside the shell and who may open them; navigation is built from this. */
 export const SCREENS = [
   { path: '/overview', label: 'Overview', roles: ['owner'] },
+  { path: '/figures', label: 'Figures', roles: ['owner'] },
   { path: '/quotes', label: 'Quotes', roles: ['owner', 'estimator'] },
   { path: '/customers', label: 'Customers', roles: ['owner', 'estimator'] },
   { path: '/catalogue', label: 'Catalogue', roles: ['owner', 'estimator'] },
