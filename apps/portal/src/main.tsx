@@ -3,13 +3,21 @@ import '@fontsource/ibm-plex-sans/600.css';
 import './styles/theme.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { LandingPage } from './landing-page';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { RouterProvider } from 'react-router-dom';
+import { createQueryClient } from './lib/query-client';
+import { createPortalRouter } from './app/router';
 
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element.');
 
+const queryClient = createQueryClient();
+const router = createPortalRouter();
+
 createRoot(root).render(
   <StrictMode>
-    <LandingPage />
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>
   </StrictMode>,
 );

@@ -1,0 +1,15 @@
+import { useMutation } from '@tanstack/react-query';
+import type { PortalTotalsResponse, PortalSelection } from '@gloaming/contracts';
+import { answerWith, apiRequest } from '../../../lib/http-client';
+import { portalPath } from './get-quote';
+
+/** The server's totals for a choice: the figures that count. */
+export const priceChoice = (token: string, selection: PortalSelection) =>
+  apiRequest(`${portalPath(token)}/totals`, {
+    method: 'POST',
+    body: { selection },
+    schema: answerWith<PortalTotalsResponse>('totals'),
+  });
+
+export const usePriceChoice = (token: string) =>
+  useMutation({ mutationFn: (selection: PortalSelection) => priceChoice(token, selection) });
