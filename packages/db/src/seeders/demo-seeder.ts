@@ -10,6 +10,7 @@ import { DEMO_ACCOUNTS, DEMO_FIRM } from './demo-accounts';
 import { DEMO_PRODUCTS } from './demo-catalogue';
 import { DEMO_CUSTOMERS } from './demo-customers';
 import { DEMO_QUOTES, demoEstimate, demoTotals, type DemoQuoteStep } from './demo-quotes';
+import { demoInstallerJob } from './demo-installer-job';
 import { demoYear } from './demo-year';
 
 /** What the steps so far have made, for the steps after them. */
@@ -134,7 +135,7 @@ function quotes(em: EntityManager, ctx: DemoContext): void {
  * The demo firm, in order: its people, its catalogue, its customers and a few quotes at
  * different stages. Add a step to the end to add more (the owner's year of history, say).
  */
-export const DEMO_STEPS: readonly DemoStep[] = [firmAndPeople, catalogue, customers, quotes, demoYear];
+export const DEMO_STEPS: readonly DemoStep[] = [firmAndPeople, catalogue, customers, quotes, demoInstallerJob, demoYear];
 
 export class DemoSeeder extends Seeder {
   async run(em: EntityManager): Promise<void> {
