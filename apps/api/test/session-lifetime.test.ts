@@ -1,4 +1,4 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, it, vi } from 'vitest';
 import { startTestServer, type TestServer } from './harness';
 
 /**
