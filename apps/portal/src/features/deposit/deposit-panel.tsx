@@ -1,7 +1,8 @@
 import { useEffect, useId, useState } from 'react';
 import type { PortalDepositState } from '@gloaming/contracts';
 import { formatMoney } from '@gloaming/engine';
-import { DepositRequestError, fetchDepositState } from './deposit-api';
+import { isApiError } from '../../lib/api-error';
+import { fetchDepositState } from './deposit-api';
 import { usePayDeposit } from './use-pay-deposit';
 
 export const formatDepositDate = (iso: string) =>
@@ -20,7 +21,7 @@ export function DepositPanel({ token }: { token: string }) {
     fetchDepositState(token, undefined, controller.signal)
       .then(setDeposit)
       .catch((err: unknown) => {
-        if (!controller.signal.aborted) setLoadError(err instanceof DepositRequestError ? err.message : 'The deposit could not be loaded.');
+        if (!controller.signal.aborted) setLoadError(isApiError(err) ? err.detail : 'The deposit could not be loaded.');
       });
     return () => controller.abort();
   }, [token]);

@@ -1,7 +1,8 @@
 import { useEffect, useState } from 'react';
 import type { PortalDepositState } from '@gloaming/contracts';
 import { formatMoney } from '@gloaming/engine';
-import { DepositRequestError, fetchDepositState } from './deposit-api';
+import { isApiError } from '../../lib/api-error';
+import { fetchDepositState } from './deposit-api';
 import { formatDepositDate } from './deposit-panel';
 import { usePayDeposit } from './use-pay-deposit';
 
@@ -36,7 +37,7 @@ export function DepositReturnPage({ token, sessionId, quoteHref }: { token: stri
       } catch (err) {
         if (controller.signal.aborted) return;
         // a passing network fault is retried; the api's refusal (bad link, unknown payment) is final
-        if (err instanceof DepositRequestError && err.status >= 400 && err.status < 500)
+        if (isApiError(err) && err.status >= 400 && err.status < 500)
           return setView({ kind: 'error', message: err.message });
       }
       if (Date.now() - started >= CONFIRMATION_TIMEOUT_MS) return setView({ kind: 'timed-out' });

@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { DepositRequestError, navigation, startDepositCheckout } from './deposit-api';
+import { isApiError } from '../../lib/api-error';
+import { navigation, startDepositCheckout } from './deposit-api';
 
 /** "Pay deposit": ask the api for a checkout and go to the provider's page. */
 export function usePayDeposit(token: string) {
@@ -12,7 +13,7 @@ export function usePayDeposit(token: string) {
       const { url } = await startDepositCheckout(token);
       navigation.go(url);
     } catch (err) {
-      setError(err instanceof DepositRequestError ? err.message : 'Something went wrong. Please try again.');
+      setError(isApiError(err) ? err.detail : 'Something went wrong. Please try again.');
       setBusy(false);
     }
   };
