@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { Discount, VatRounding } from './estimate';
 import { Problem } from './problem';
+import { QuoteStatus } from './quotes';
 
 /**
  * The homeowner's portal: what a personal quote link shows and what it accepts. The view
@@ -224,6 +225,8 @@ export const QuoteReplyResponse = z.object({ message: QuoteMessageView, sentTo: 
 export type QuoteReplyResponse = z.infer<typeof QuoteReplyResponse>;
 
 export const QuoteDecisionResponse = z.object({
+  /** The quote's status now (it follows the homeowner's steps). */
+  status: QuoteStatus,
   approval: PortalApprovalSummary.extend({
     revisionNumber: z.number().int(),
     ipAddress: z.string(),

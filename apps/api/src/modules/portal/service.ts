@@ -386,6 +386,7 @@ export async function quoteDecision(em: EntityManager, quote: Quote): Promise<Qu
     : await em.findOne(QuoteEvent, { quote: quote.id, type: 'declined' }, { orderBy: { at: 'desc' }, populate: ['revision'] });
   const reason = declined?.data.reason;
   return {
+    status: quote.status,
     approval: approval
       ? {
           ...presentApproval(approval, approval.revision),

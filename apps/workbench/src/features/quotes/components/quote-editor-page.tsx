@@ -13,6 +13,7 @@ import { EstimateGrid, previewContent, type CellDraft } from './estimate-grid';
 import { TotalsPanel } from './totals-panel';
 import { QuotePhotosPanel } from '../../photos/components/quote-photos-panel';
 import { QuoteSendControls } from '../../quote-sending/components/quote-send-controls';
+import { HomeownerPanel } from '../../quote-conversation/components/homeowner-panel';
 import { QuoteDepositsPanel } from '../../deposits/components/quote-deposits-panel';
 
 /** The engine's totals, or null when the document is one the engine refuses (shown as a notice). */
@@ -126,6 +127,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
             </span>
           ) : null}
           <QuoteSendControls quoteId={quote.id} revision={revision} beforeSend={autosave.saveNow} />
+          <HomeownerPanel quoteId={quote.id} />
           <label className="flex items-center gap-2 text-caption text-ink-muted">
             Revision
             <RevisionSwitcher detail={detail} current={revision.number} />
