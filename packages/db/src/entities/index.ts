@@ -20,6 +20,7 @@ export { QuoteMessage, MESSAGE_AUTHORS, type MessageAuthor } from './quote-messa
 export { FirmEvent } from './firm-event';
 export { CircuitAsWired } from './circuit-as-wired';
 export { CommissioningRecord } from './commissioning-record';
+export { OutboxMessage, OUTBOX_STATES, type OutboxState, type OutboxAttachment } from './outbox-message';
 
 import { AuthToken } from './auth-token';
 import { Circuit } from './circuit';
@@ -31,6 +32,7 @@ import { FirmEvent } from './firm-event';
 import { ImportJob } from './import-job';
 import { ImportMapping } from './import-mapping';
 import { Organization } from './organization';
+import { OutboxMessage } from './outbox-message';
 import { PaymentWebhookEvent } from './payment-webhook-event';
 import { Photo } from './photo';
 import { PortalToken } from './portal-token';
@@ -68,4 +70,5 @@ export const entities = [
   FirmEvent,
   CircuitAsWired,
   CommissioningRecord,
+  OutboxMessage,
 ];

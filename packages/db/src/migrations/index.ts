@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201225121_outbox_messages } from './Migration20261201225121_outbox_messages';
 import { Migration20261201221527_installer_as_wired_and_commissioning } from './Migration20261201221527_installer_as_wired_and_commissioning';
 import { Migration20261201221318_firm_settings_and_activity } from './Migration20261201221318_firm_settings_and_activity';
 import { Migration20261201221050_portal_approval_payments } from './Migration20261201221050_portal_approval_payments';
@@ -18,5 +19,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201221050_portal_approval_payments', class: Migration20261201221050_portal_approval_payments },
   { name: 'Migration20261201221318_firm_settings_and_activity', class: Migration20261201221318_firm_settings_and_activity },
   { name: 'Migration20261201221527_installer_as_wired_and_commissioning', class: Migration20261201221527_installer_as_wired_and_commissioning },
+  { name: 'Migration20261201225121_outbox_messages', class: Migration20261201225121_outbox_messages },
   // next migration
 ];
