@@ -68,3 +68,50 @@ export function fitLinks(design: CcCircuitDesign, blockCount: number): CcCircuit
         ];
   return { ...design, links };
 }
+
+/**
+ * Each fitting's connector block (1-based): from the design's own assignment when it has one,
+ * else where the engine's plan put it; null for a fitting in no block (no plan yet).
+ */
+export function fittingBlocks(
+  design: CcCircuitDesign,
+  plan: readonly { fittings: readonly number[] }[] | null,
+): (number | null)[] {
+  if (design.assignment) {
+    const blockOf = new Map<string, number>();
+    design.assignment.forEach((ids, b) => ids.forEach((id) => blockOf.set(id, b + 1)));
+    return design.fittings.map((f) => blockOf.get(f.id) ?? null);
+  }
+  const byPosition = new Map<number, number>();
+  (plan ?? []).forEach((b, k) => b.fittings.forEach((position) => byPosition.set(position, k + 1)));
+  return design.fittings.map((_, i) => byPosition.get(i + 1) ?? null);
+}
+
+/**
+ * Put fitting `index` in block `block` (1-based), the others where they are now. A series
+ * string runs through its blocks in order, so a fitting before it never sits in a later block
+ * and one after it never in an earlier one; blocks left empty are dropped and the rest renumbered.
+ * Fittings in no block yet follow the one before them.
+ */
+export function assignFittingToBlock(
+  design: CcCircuitDesign,
+  current: readonly (number | null)[],
+  index: number,
+  block: number,
+): CcCircuitDesign {
+  if (index < 0 || index >= design.fittings.length || !(block >= 1)) return design;
+  const blocks: number[] = [];
+  design.fittings.forEach((_, i) => blocks.push(current[i] ?? blocks[i - 1] ?? 1));
+  blocks[index] = block;
+  for (let i = index + 1; i < blocks.length; i++) blocks[i] = Math.max(blocks[i]!, block);
+  for (let i = index - 1; i >= 0; i--) blocks[i] = Math.min(blocks[i]!, block);
+  const numbers = [...new Set(blocks)].sort((a, b) => a - b);
+  const assignment: string[][] = numbers.map(() => []);
+  design.fittings.forEach((f, i) => assignment[numbers.indexOf(blocks[i]!)]!.push(f.id));
+  return { ...design, assignment };
+}
+
+/** Let the engine fill the blocks in order again. */
+export function letEngineAssign(design: CcCircuitDesign): CcCircuitDesign {
+  return design.assignment === null ? design : { ...design, assignment: null };
+}

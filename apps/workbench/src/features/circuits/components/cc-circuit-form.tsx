@@ -9,13 +9,35 @@ import {
   type InstallationLocation,
   type Product,
 } from '@gloaming/contracts';
+import {
+  DndContext,
+  KeyboardSensor,
+  PointerSensor,
+  closestCenter,
+  useSensor,
+  useSensors,
+  type Announcements,
+  type DragEndEvent,
+} from '@dnd-kit/core';
+import { SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
+import { CSS } from '@dnd-kit/utilities';
 import type { CircuitEvaluation, CircuitFinding } from '@gloaming/engine';
 import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import type { ChoiceKind } from '../api/catalogue-choices';
-import { addFitting, defaultDriveCurrentA, fitLinks, moveFitting, removeFitting, updateFitting } from '../design-edits';
+import {
+  addFitting,
+  assignFittingToBlock,
+  defaultDriveCurrentA,
+  fitLinks,
+  fittingBlocks,
+  letEngineAssign,
+  moveFitting,
+  removeFitting,
+  updateFitting,
+} from '../design-edits';
 import { FindingList, findingsAbout } from './finding-list';
 import { ProductSelect, fmt } from './product-select';
 
@@ -122,6 +144,42 @@ export function CcCircuitForm({
   };
   const blockCount = evaluation.blocks?.blocks.length ?? 0;
   const driverFindings = findingsAbout(evaluation.findings, 'driver');
+  const blocks = fittingBlocks(design, evaluation.blocks?.blocks ?? null);
+  // a block may be picked up to one past the last in use (a new block)
+  const blockChoices = Math.max(blockCount, ...blocks.map((b) => b ?? 0)) + 1;
+  const blockOptionsFor = (i: number) => [
+    {
+      value: 'auto',
+      label: design.assignment !== null ? 'Auto (all)' : blocks[i] ? `Auto: ${blocks[i]}` : 'Auto',
+    },
+    ...Array.from({ length: blockChoices }, (_, k) => ({ value: String(k + 1), label: `Block ${k + 1}` })),
+  ];
+
+  // Drag by the handle (pointer, or Space then arrows from the keyboard); Alt+Up/Down still moves the row.
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+  );
+  const ids = design.fittings.map((f) => f.id);
+  const position = (id: string | number | undefined) => ids.indexOf(String(id)) + 1;
+  const announcements: Announcements = {
+    onDragStart: ({ active }) => `Picked up fitting ${position(active.id)}. Arrow keys move it, Space drops it, Escape cancels.`,
+    onDragOver: ({ active, over }) =>
+      over
+        ? `Fitting ${position(active.id)} is over position ${position(over.id)}.`
+        : `Fitting ${position(active.id)} is not over a place.`,
+    onDragEnd: ({ active, over }) =>
+      over
+        ? `Fitting ${position(active.id)} dropped at position ${position(over.id)}.`
+        : `Fitting ${position(active.id)} dropped.`,
+    onDragCancel: ({ active }) => `Moving fitting ${position(active.id)} cancelled; it stays where it was.`,
+  };
+  const onDragEnd = ({ active, over }: DragEndEvent) => {
+    if (!over || active.id === over.id) return;
+    const from = ids.indexOf(String(active.id));
+    const to = ids.indexOf(String(over.id));
+    if (from >= 0 && to >= 0) onChange(moveFitting(design, from, to - from));
+  };
 
   return (
     <div className="flex flex-col gap-6">
@@ -152,16 +210,19 @@ export function CcCircuitForm({
           <h3 id="fittings-heading" className="text-lead font-semibold text-ink">
             Fittings in wiring order
           </h3>
-          <p className="text-caption text-ink-muted">Alt+↑ / Alt+↓ moves the fitting you are on.</p>
+          <p className="text-caption text-ink-muted">
+            Drag a fitting by its ⠿ handle, or Alt+↑ / Alt+↓ moves the fitting you are on.
+          </p>
         </div>
         <table className="w-full table-fixed text-caption [&_td_label]:sr-only">
           <colgroup>
-            <col className="w-7" />
-            <col className="w-[30%]" />
-            <col className="w-[22%]" />
-            <col className="w-[22%]" />
+            <col className="w-12" />
+            <col className="w-[27%]" />
+            <col className="w-[14%]" />
+            <col className="w-[16%]" />
             <col className="w-20" />
-            <col className="w-14" />
+            <col className="w-28" />
+            <col className="w-16" />
             <col className="w-28" />
           </colgroup>
           <thead>
@@ -182,6 +243,9 @@ export function CcCircuitForm({
                 Drive mA
               </th>
               <th scope="col" className="py-1">
+                Block
+              </th>
+              <th scope="col" className="py-1">
                 Vf
               </th>
               <th scope="col" className="py-1">
@@ -189,101 +253,136 @@ export function CcCircuitForm({
               </th>
             </tr>
           </thead>
-          <tbody ref={tableRef}>
-            {design.fittings.map((f, i) => {
-              const at = evaluation.series?.fittings[i];
-              const rowFindings = findingsAbout(evaluation.findings, `fitting:${i + 1}`);
-              return (
-                <FittingRows
-                  key={f.id}
-                  index={i}
-                  count={design.fittings.length}
-                  onKeyDown={onRowKey(i)}
-                  rowId={f.id}
-                  findings={rowFindings}
-                  onAcknowledge={onAcknowledge}
-                >
-                  <td className="py-1 pr-2">
-                    <ProductSelect
-                      label={`Fitting ${i + 1} product`}
-                      products={choices.fitting}
-                      value={f.productId}
-                      dataCol="product"
-                      onChange={(id) =>
-                        id &&
-                        onChange(
-                          updateFitting(design, i, { productId: id, driveCurrentA: defaultDriveCurrentA(products.get(id)) }),
-                        )
-                      }
-                    />
-                  </td>
-                  <td className="py-1 pr-2">
-                    <TextField
-                      label={`Fitting ${i + 1} label`}
-                      value={f.label}
-                      data-col="label"
-                      onChange={(e) => onChange(updateFitting(design, i, { label: e.target.value }))}
-                    />
-                  </td>
-                  <td className="py-1 pr-2">
-                    <SelectField
-                      label={`Fitting ${i + 1} location`}
-                      options={LOCATION_OPTIONS}
-                      value={f.location}
-                      data-col="location"
-                      onChange={(e) => onChange(updateFitting(design, i, { location: e.target.value as InstallationLocation }))}
-                    />
-                  </td>
-                  <td className="py-1 pr-2">
-                    <TextField
-                      label={`Fitting ${i + 1} drive current (mA)`}
-                      type="number"
-                      min={1}
-                      step={1}
-                      data-col="current"
-                      value={String(Math.round(f.driveCurrentA * 1000))}
-                      onChange={(e) => {
-                        const mA = Number(e.target.value);
-                        if (Number.isFinite(mA) && mA > 0) onChange(updateFitting(design, i, { driveCurrentA: mA / 1000 }));
-                      }}
-                    />
-                  </td>
-                  <td className="py-1 pr-2 font-mono">{at ? `${fmt(at.forwardVoltageV)} V` : '—'}</td>
-                  <td className="py-1 whitespace-nowrap">
-                    <Button
-                      variant="quiet"
-                      className="h-9 px-2"
-                      aria-label={`Move fitting ${i + 1} up`}
-                      disabled={i === 0}
-                      onClick={() => move(i, -1, 'up')}
-                      data-col="up"
+          <DndContext
+            sensors={sensors}
+            collisionDetection={closestCenter}
+            onDragEnd={onDragEnd}
+            accessibility={{ announcements }}
+          >
+            <SortableContext items={ids} strategy={verticalListSortingStrategy}>
+              <tbody ref={tableRef}>
+                {design.fittings.map((f, i) => {
+                  const at = evaluation.series?.fittings[i];
+                  const rowFindings = findingsAbout(evaluation.findings, `fitting:${i + 1}`);
+                  return (
+                    <FittingRows
+                      key={f.id}
+                      index={i}
+                      count={design.fittings.length}
+                      onKeyDown={onRowKey(i)}
+                      rowId={f.id}
+                      findings={rowFindings}
+                      onAcknowledge={onAcknowledge}
                     >
-                      ↑
-                    </Button>
-                    <Button
-                      variant="quiet"
-                      className="h-9 px-2"
-                      aria-label={`Move fitting ${i + 1} down`}
-                      disabled={i === design.fittings.length - 1}
-                      onClick={() => move(i, 1, 'down')}
-                      data-col="down"
-                    >
-                      ↓
-                    </Button>
-                    <Button
-                      variant="quiet"
-                      className="h-9 px-2"
-                      aria-label={`Remove fitting ${i + 1}`}
-                      onClick={() => onChange(removeFitting(design, i))}
-                    >
-                      ✕
-                    </Button>
-                  </td>
-                </FittingRows>
-              );
-            })}
-          </tbody>
+                      <td className="py-1 pr-2">
+                        <ProductSelect
+                          label={`Fitting ${i + 1} product`}
+                          products={choices.fitting}
+                          value={f.productId}
+                          dataCol="product"
+                          onChange={(id) =>
+                            id &&
+                            onChange(
+                              updateFitting(design, i, { productId: id, driveCurrentA: defaultDriveCurrentA(products.get(id)) }),
+                            )
+                          }
+                        />
+                      </td>
+                      <td className="py-1 pr-2">
+                        <TextField
+                          label={`Fitting ${i + 1} label`}
+                          value={f.label}
+                          data-col="label"
+                          onChange={(e) => onChange(updateFitting(design, i, { label: e.target.value }))}
+                        />
+                      </td>
+                      <td className="py-1 pr-2">
+                        <SelectField
+                          label={`Fitting ${i + 1} location`}
+                          options={LOCATION_OPTIONS}
+                          value={f.location}
+                          data-col="location"
+                          onChange={(e) =>
+                            onChange(updateFitting(design, i, { location: e.target.value as InstallationLocation }))
+                          }
+                        />
+                      </td>
+                      <td className="py-1 pr-2">
+                        <TextField
+                          label={`Fitting ${i + 1} drive current (mA)`}
+                          type="number"
+                          min={1}
+                          step={1}
+                          data-col="current"
+                          value={String(Math.round(f.driveCurrentA * 1000))}
+                          onChange={(e) => {
+                            const mA = Number(e.target.value);
+                            if (Number.isFinite(mA) && mA > 0) onChange(updateFitting(design, i, { driveCurrentA: mA / 1000 }));
+                          }}
+                        />
+                      </td>
+                      <td className="py-1 pr-2">
+                        <SelectField
+                          label={`Fitting ${i + 1} connector block`}
+                          options={blockOptionsFor(i)}
+                          value={design.assignment === null || blocks[i] === null ? 'auto' : String(blocks[i])}
+                          data-col="block"
+                          disabled={!evaluation.blocks && design.assignment === null}
+                          onChange={(e) =>
+                            onChange(
+                              e.target.value === 'auto'
+                                ? letEngineAssign(design)
+                                : assignFittingToBlock(design, blocks, i, Number(e.target.value)),
+                            )
+                          }
+                        />
+                      </td>
+                      <td className="py-1 pr-2 font-mono">{at ? `${fmt(at.forwardVoltageV)} V` : '—'}</td>
+                      <td className="py-1 whitespace-nowrap">
+                        <Button
+                          variant="quiet"
+                          className="h-9 px-2"
+                          aria-label={`Move fitting ${i + 1} up`}
+                          disabled={i === 0}
+                          onClick={() => move(i, -1, 'up')}
+                          data-col="up"
+                        >
+                          ↑
+                        </Button>
+                        <Button
+                          variant="quiet"
+                          className="h-9 px-2"
+                          aria-label={`Move fitting ${i + 1} down`}
+                          disabled={i === design.fittings.length - 1}
+                          onClick={() => move(i, 1, 'down')}
+                          data-col="down"
+                        >
+                          ↓
+                        </Button>
+                        <Button
+                          variant="quiet"
+                          className="h-9 px-2"
+                          aria-label={`Remove fitting ${i + 1}`}
+                          onClick={() => onChange(removeFitting(design, i))}
+                        >
+                          ✕
+                        </Button>
+                      </td>
+                    </FittingRows>
+                  );
+                })}
+              </tbody>
+            </SortableContext>
+          </DndContext>
         </table>
+        {design.assignment !== null ? (
+          <p className="flex items-center gap-3 text-caption text-ink-muted">
+            You placed the fittings in blocks yourself; moving, adding or removing a fitting hands them back to the engine.
+            <Button variant="secondary" className="h-8 px-3" onClick={() => onChange(letEngineAssign(design))}>
+              Let the engine assign every fitting
+            </Button>
+          </p>
+        ) : null}
         <div>
           <Button
             variant="secondary"
@@ -429,21 +528,41 @@ function FittingRows({
   onAcknowledge: (f: CircuitFinding) => void;
   onKeyDown: (e: KeyboardEvent<HTMLTableRowElement>) => void;
 }) {
+  const { attributes, listeners, setNodeRef, setActivatorNodeRef, transform, transition, isDragging } = useSortable({
+    id: rowId,
+  });
   return (
     <>
       <tr
+        ref={setNodeRef}
+        style={{ transform: CSS.Translate.toString(transform), transition }}
         data-fitting-row={rowId}
+        data-dragging={isDragging ? 'true' : undefined}
         onKeyDown={onKeyDown}
         aria-label={`Fitting ${index + 1} of ${count}`}
-        className="border-t border-line align-bottom"
+        className={`border-t border-line align-bottom ${isDragging ? 'relative z-10 bg-lamp-50 shadow-raised' : ''}`}
       >
-        <td className="py-1 pr-2 font-mono text-ink-muted">{index + 1}</td>
+        <td className="py-1 pr-1 font-mono text-ink-muted">
+          <button
+            type="button"
+            ref={setActivatorNodeRef}
+            {...attributes}
+            {...listeners}
+            aria-label={`Drag fitting ${index + 1} to reorder`}
+            aria-roledescription="sortable fitting"
+            data-drag-handle={rowId}
+            className="inline-flex h-9 cursor-grab touch-none items-center gap-1 rounded-control px-1 hover:bg-mist-100 focus-visible:ring-2 focus-visible:ring-lamp-400 focus-visible:outline-none active:cursor-grabbing"
+          >
+            <span aria-hidden="true">⠿</span>
+            {index + 1}
+          </button>
+        </td>
         {children}
       </tr>
       {findings.length > 0 ? (
         <tr data-fitting-findings={rowId}>
           <td />
-          <td colSpan={6} className="pb-2">
+          <td colSpan={7} className="pb-2">
             <FindingList findings={findings} onAcknowledge={onAcknowledge} label={`Findings about fitting ${index + 1}`} />
           </td>
         </tr>

@@ -9,6 +9,7 @@ import { useCreateCircuit, useDeleteCircuit, useUpdateCircuit } from '../api/sav
 import { agreesWithSaved, useLiveCircuit } from '../hooks/use-live-circuit';
 import { CcCircuitForm } from './cc-circuit-form';
 import { CircuitResults } from './circuit-results';
+import { DriveCurrentComparison, LargerCable } from './circuit-what-ifs';
 import { CvCircuitForm } from './cv-circuit-form';
 import { DriverSuggestions } from './driver-suggestions';
 import { StringDiagram } from './string-diagram';
@@ -56,9 +57,20 @@ export function CircuitEditor({
   const dirty = design !== circuit.design || area !== circuit.area || name !== circuit.name;
   const agrees = !dirty && agreesWithSaved(live, circuit.result.evaluation);
   const general = live.findings.filter((f) => !PLACED.test(f.subject ?? ''));
-  const onAcknowledge = readOnly ? undefined : (f: CircuitFinding) => setAck({ finding: f, reason: '' });
-
   const save = () => update.mutate({ circuitId: circuit.id, request: { version: circuit.version, area, name, design } });
+  /** Accepting or withdrawing is saved at once: the quote's history records it with the reason. */
+  const saveDesign = (next: CircuitDesign) => {
+    setDesign(next);
+    update.mutate({ circuitId: circuit.id, request: { version: circuit.version, area, name, design: next } });
+  };
+  const withdraw = (f: CircuitFinding) =>
+    saveDesign({
+      ...design,
+      acknowledgements: design.acknowledgements.filter((a) => !(a.code === f.code && a.subject === (f.subject ?? null))),
+    } as CircuitDesign);
+  const onAcknowledge = readOnly
+    ? undefined
+    : (f: CircuitFinding) => (f.acknowledged !== null ? withdraw(f) : setAck({ finding: f, reason: '' }));
 
   const takeDriver = (productId: string, response: CircuitSuggestionsResponse) => {
     setExtra((e) => [...e, ...response.products]);
@@ -168,7 +180,7 @@ export function CircuitEditor({
           onSubmit={(e) => {
             e.preventDefault();
             if (ack.reason.trim().length < 3) return;
-            setDesign({
+            saveDesign({
               ...design,
               acknowledgements: [
                 ...design.acknowledgements,
@@ -179,7 +191,8 @@ export function CircuitEditor({
           }}
         >
           <p className="w-full text-caption">
-            Accept “{ack.finding.message}” — say why it is acceptable; the reason is kept with the circuit.
+            Accept “{ack.finding.message}” — say why it is acceptable. Accepting saves the circuit; the reason, and who accepted
+            it, go into the quote’s history.
           </p>
           <TextField
             label="Reason"
@@ -189,7 +202,7 @@ export function CircuitEditor({
             autoFocus
           />
           <Button type="submit" className="h-11" disabled={ack.reason.trim().length < 3}>
-            Accept
+            Accept and save
           </Button>
           <Button variant="secondary" className="h-11" onClick={() => setAck(null)}>
             Cancel
@@ -199,6 +212,25 @@ export function CircuitEditor({
       <div className="flex flex-col gap-6">
         <div className="flex min-w-0 flex-col gap-6">
           <CircuitResults evaluation={live} general={general} onAcknowledge={onAcknowledge ?? (() => {})} />
+          <LargerCable
+            design={design}
+            products={pool}
+            cables={choices.cable}
+            profile={profile}
+            evaluation={live}
+            onChange={setDesign}
+            disabled={readOnly}
+          />
+          {design.kind === 'constant-current' ? (
+            <DriveCurrentComparison
+              design={design}
+              products={pool}
+              drivers={choices.driver}
+              profile={profile}
+              onChange={setDesign}
+              disabled={readOnly}
+            />
+          ) : null}
         </div>
         <fieldset disabled={readOnly} className="min-w-0">
           {design.kind === 'constant-current' ? (

@@ -13,7 +13,8 @@ export function findingsAbout(findings: readonly CircuitFinding[], subject: stri
 
 /**
  * Findings shown where the problem is. Severity is carried by a word and a mark as well as
- * colour; an acknowledged error says so, with the reason.
+ * colour; an acknowledged error says so, with the reason. `onAcknowledge` is called with an
+ * unaccepted error to accept it, and with an accepted one to withdraw the acceptance.
  */
 export function FindingList({
   findings,
@@ -48,6 +49,16 @@ export function FindingList({
             {onAcknowledge && f.severity === 'error' && f.acknowledged === null ? (
               <button type="button" className="shrink-0 font-semibold underline" onClick={() => onAcknowledge(f)}>
                 Accept…
+              </button>
+            ) : null}
+            {onAcknowledge && f.severity === 'error' && f.acknowledged !== null ? (
+              <button
+                type="button"
+                className="shrink-0 font-semibold underline"
+                aria-label={`Withdraw the acceptance of: ${f.message}`}
+                onClick={() => onAcknowledge(f)}
+              >
+                Withdraw
               </button>
             ) : null}
           </li>
