@@ -192,7 +192,7 @@ function SendDialog({
         e.preventDefault();
         onClose();
       }}
-      className="m-auto w-[min(46rem,calc(100vw-2rem))] rounded-card bg-surface p-0 text-ink shadow-raised backdrop:bg-dusk-950/40"
+      className="m-auto w-[min(46rem,calc(100vw-2rem))] rounded-card bg-surface p-0 whitespace-normal text-ink shadow-raised backdrop:bg-dusk-950/40"
     >
       <form onSubmit={(e) => void submit(e)} className="flex flex-col gap-4 p-6">
         <header className="flex flex-col gap-1">
