@@ -55,7 +55,9 @@ export function LargerCable({
       <h4 className="text-body font-semibold text-ink">Larger cable</h4>
       {suggestion.changes.length > 0 ? (
         <>
-          <p className="text-caption text-ink-muted">The cable’s drop takes a check over its limit. A larger conductor fixes it:</p>
+          <p className="text-caption text-ink-muted">
+            The cable’s drop takes a check over its limit. A larger conductor fixes it:
+          </p>
           <ul className="flex list-disc flex-col gap-1 pl-5 text-caption" data-testid="cable-suggestion">
             {suggestion.changes.map((c) => (
               <li key={c.target}>{changeText(c, runLabel)}</li>
