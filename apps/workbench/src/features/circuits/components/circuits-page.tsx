@@ -10,6 +10,7 @@ import { useQuote } from '../../quotes/api/get-quote';
 import { useCatalogueChoices } from '../api/catalogue-choices';
 import { useCircuits } from '../api/list-circuits';
 import { useCreateCircuit } from '../api/save-circuit';
+import { AcceptanceHistory } from './acceptance-history';
 import { CircuitEditor } from './circuit-editor';
 
 /** The caution every screen giving electrical advice carries. */
@@ -191,6 +192,7 @@ function CircuitsForRevision({
           ) : null}
         </div>
       </div>
+      <AcceptanceHistory quoteId={quoteId} />
     </div>
   );
 }
