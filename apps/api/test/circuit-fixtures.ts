@@ -115,7 +115,7 @@ export async function createCircuitFixture(em: EntityManager, f: FirmFixture, qu
     kind: design.kind,
     position: 0,
     design,
-    result: storedResult(evaluateCircuit(design, views, circuitSettings(f.firm))),
+    result: storedResult(evaluateCircuit(design, views, circuitSettings(revision, f.firm))),
   });
   await rederiveRevision(em, revision, [circuit]);
   await em.flush();

@@ -87,7 +87,7 @@ describe('circuits of a quote revision', () => {
     // The workbench's live check: the same function over what the list endpoint gives it.
     const list = CircuitListResponse.parse((await estimator.get(circuitsUrl(quoteA))).body);
     const c = list.circuits.find((x) => x.id === circuitId)!;
-    const live = JSON.parse(JSON.stringify(evaluateCircuit(c.design, list.products, { profile: list.profile }))) as unknown;
+    const live = JSON.parse(JSON.stringify(evaluateCircuit(c.design, list.products, list.checkSettings))) as unknown;
     expect(live).toEqual(c.result.evaluation);
     // the revision moved on with its derived lines, so the grid's lock is the new version
     expect(saved.revision.version).toBeGreaterThan(before.revision.version);

@@ -42,7 +42,7 @@ export async function createJobFixture(em: EntityManager, f: FirmFixture, status
     kind: design.kind,
     position: 0,
     design,
-    result: storedResult(evaluateCircuit(design, views, circuitSettings(f.firm))),
+    result: storedResult(evaluateCircuit(design, views, circuitSettings(revision, f.firm))),
   });
   await rederiveRevision(em, revision, [circuit]);
   quote.title = 'Path lights';

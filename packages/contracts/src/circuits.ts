@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Product } from './catalogue';
+import { IpCodeText, Product } from './catalogue';
 import { Version } from './customers';
 
 /**
@@ -56,6 +56,19 @@ export const CABLE_METHOD_LABELS: Record<CableMethod, string> = {
 export const CODE_PROFILE_IDS = ['uk-iec', 'us-nec'] as const;
 export const CodeProfileId = z.enum(CODE_PROFILE_IDS);
 export type CodeProfileId = z.infer<typeof CodeProfileId>;
+
+/**
+ * What the circuit checks go by, as the engine takes it (its CircuitSettings): the revision's
+ * code profile, driver headroom, voltage-drop limit and IP minimums. The api sends the one it
+ * checked with, so the browser's live check gives the same answer.
+ */
+export const CircuitCheckSettings = z.object({
+  profile: CodeProfileId,
+  headroomMarginPct: z.number().min(0).max(100).optional(),
+  dropLimitPct: z.number().min(0).max(100).optional(),
+  ipOverrides: z.partialRecord(InstallationLocation, IpCodeText).optional(),
+});
+export type CircuitCheckSettings = z.infer<typeof CircuitCheckSettings>;
 
 export const CIRCUIT_KINDS = ['constant-current', 'constant-voltage'] as const;
 export const CircuitKind = z.enum(CIRCUIT_KINDS, 'A circuit is constant-current or constant-voltage.');
@@ -250,8 +263,10 @@ export const CircuitListResponse = z.object({
   /** Every product the circuits name, for the live checks in the browser. */
   products: z.array(Product),
   revision: CircuitRevisionState,
-  /** The code profile the checks use for this firm. */
+  /** The code profile the checks use for this revision (the same as checkSettings.profile). */
   profile: CodeProfileId,
+  /** Everything the checks of this revision go by (its design settings). */
+  checkSettings: CircuitCheckSettings,
 });
 export type CircuitListResponse = z.infer<typeof CircuitListResponse>;
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { IpCodeText } from './catalogue';
-import { CABLE_METHODS, CodeProfileId, INSTALLATION_LOCATIONS } from './circuits';
+import { CABLE_METHODS, CodeProfileId, INSTALLATION_LOCATIONS, type CircuitCheckSettings } from './circuits';
 
 /**
  * A firm's circuit-design settings: labour times, cable slack and cut length, the voltage-drop
@@ -83,3 +83,18 @@ export const DEFAULT_DESIGN_SETTINGS: DesignSettings = {
   ipMinimums: {},
   codeProfile: 'uk-iec',
 };
+
+/**
+ * The circuit checks' settings from a revision's design settings (basis points become the
+ * engine's per cent). A revision made before firms had design settings has none: it keeps
+ * the profile it was checked with (`fallbackProfile`) and the engine's defaults.
+ */
+export function checkSettingsOf(design: DesignSettings | undefined, fallbackProfile: CodeProfileId): CircuitCheckSettings {
+  if (!design) return { profile: fallbackProfile };
+  return {
+    profile: design.codeProfile,
+    headroomMarginPct: design.driverHeadroomBp / 100,
+    dropLimitPct: design.voltageDropLimitBp / 100,
+    ipOverrides: { ...design.ipMinimums },
+  };
+}

@@ -4,7 +4,7 @@
  * values of exactly these shapes, so the api and the workbench pass them straight in and
  * both get the same engine inputs from `evaluateCircuit`.
  */
-import type { InstallationLocation } from '../ip-code/installation-location';
+import type { InstallationLocation, IpOverrides } from '../ip-code/installation-location';
 import type { CodeProfileId } from '../profiles/code-profile';
 import type { InstallationMethod } from '../takeoff/circuit';
 
@@ -142,4 +142,8 @@ export interface CircuitSettings {
   profile: CodeProfileId;
   /** Headroom to keep below a driver's maximum, % (engine default 10). */
   headroomMarginPct?: number;
+  /** Largest voltage drop on a constant-voltage run, % of nominal (engine default 5). */
+  dropLimitPct?: number;
+  /** The firm's own minimum IP codes, replacing the defaults location by location. */
+  ipOverrides?: IpOverrides;
 }

@@ -291,7 +291,13 @@ function ccInputs(design: CcCircuitDesign, products: readonly DesignProduct[], s
     );
   }
 
-  const firm = settings.headroomMarginPct === undefined ? undefined : { headroomMarginPct: settings.headroomMarginPct };
+  const firm =
+    settings.headroomMarginPct === undefined && settings.ipOverrides === undefined
+      ? undefined
+      : {
+          ...(settings.headroomMarginPct === undefined ? {} : { headroomMarginPct: settings.headroomMarginPct }),
+          ...(settings.ipOverrides === undefined ? {} : { ipOverrides: settings.ipOverrides }),
+        };
   const layout: StringLayout | null = complete
     ? { fittings, runs, driverLocation: design.driverLocation, profile: settings.profile, ...(firm ? { firm } : {}) }
     : null;
@@ -375,7 +381,14 @@ function cvInputs(design: CvCircuitDesign, products: readonly DesignProduct[], s
         : { id: run.id, layout: run.layout, cable, spans },
     );
   }
-  const input: CvInput | null = supply && complete ? { supply, runs, profile: settings.profile } : null;
+  const firm =
+    settings.dropLimitPct === undefined && settings.ipOverrides === undefined
+      ? undefined
+      : {
+          ...(settings.dropLimitPct === undefined ? {} : { dropLimitPct: settings.dropLimitPct }),
+          ...(settings.ipOverrides === undefined ? {} : { ipOverrides: settings.ipOverrides }),
+        };
+  const input: CvInput | null = supply && complete ? { supply, runs, profile: settings.profile, ...(firm ? { firm } : {}) } : null;
   return { kind: 'constant-voltage', input, findings };
 }
 

@@ -31,7 +31,6 @@ import {
   presentRevisionState,
   productRefs,
   productsForDesign,
-  profileFor,
   rederiveRevision,
   storedResult,
 } from './service';
@@ -67,6 +66,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       handler: async ({ res, em, input, auth }) => {
         const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
         const circuits = await listCircuits(em, revision);
+        const checkSettings = circuitSettings(revision, firm);
         const products = await firmProducts(
           em,
           auth.organizationId,
@@ -76,7 +76,8 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
           circuits: circuits.map(presentCircuit),
           products,
           revision: presentRevisionState(revision),
-          profile: profileFor(firm),
+          profile: checkSettings.profile,
+          checkSettings,
         };
         res.json(body);
       },
@@ -102,7 +103,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
           kind: design.kind,
           position: existing.reduce((n, c) => Math.max(n, c.position + 1), 0),
           design,
-          result: storedResult(evaluateCircuit(design, products, circuitSettings(firm))),
+          result: storedResult(evaluateCircuit(design, products, circuitSettings(revision, firm))),
         });
         await rederiveRevision(em, revision, [...existing, circuit]);
         recordAcceptances(em, quote, revision, circuit, null, design, { id: auth.user.id });
@@ -138,7 +139,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         circuit.name = name;
         if (position !== undefined) circuit.position = position;
         circuit.design = design;
-        circuit.result = storedResult(evaluateCircuit(design, products, circuitSettings(firm)));
+        circuit.result = storedResult(evaluateCircuit(design, products, circuitSettings(revision, firm)));
         await rederiveRevision(em, revision, await listCircuits(em, revision));
         recordAcceptances(em, quote, revision, circuit, previous, design, { id: auth.user.id });
         await em.flush();
@@ -178,7 +179,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: circuitStaff,
       schemas: { params: RevisionParams },
       handler: async ({ req, res, em, input, auth }) => {
-        const { firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
+        const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
         const { design } = await validatedBody(req, res, CircuitSuggestionsRequest);
         const products = await productsForDesign(em, auth.organizationId, design);
         const drivers = (
@@ -188,7 +189,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
             { orderBy: { name: 'asc' } },
           )
         ).map(presentProduct);
-        const s = suggestForCircuit(design, products, drivers, circuitSettings(firm));
+        const s = suggestForCircuit(design, products, drivers, circuitSettings(revision, firm));
         const named = new Set([
           ...s.drivers.map((d) => d.productId),
           ...s.rejected.map((r) => r.productId),

@@ -5,8 +5,10 @@
  * it and the grid's optimistic lock stays true.
  */
 import {
+  checkSettingsOf,
   CircuitDesign as CircuitDesignSchema,
   CircuitResult,
+  type CircuitCheckSettings,
   type CircuitDesign,
   type CircuitView,
   type Product as ProductView,
@@ -18,13 +20,21 @@ import { presentProduct } from '../catalogue/presenter';
 import { priceRevision, revisionContent, revisionSettings, storedTotals } from '../quotes/service';
 import { regenerateDerivedLines } from './derived-lines';
 
-/** The code profile a firm's checks use: US rules for a US locale, else the UK/IEC profile. */
+/**
+ * The code profile of a revision made before firms had design settings: US rules for a US
+ * locale, else the UK/IEC profile (how those revisions were checked).
+ */
 export function profileFor(firm: Pick<Organization, 'locale'>): CodeProfileId {
   return firm.locale === 'en-US' ? 'us-nec' : 'uk-iec';
 }
 
-export function circuitSettings(firm: Pick<Organization, 'locale'>): CircuitSettings {
-  return { profile: profileFor(firm) };
+/**
+ * What a revision's circuit checks go by: its own design settings (code profile, driver
+ * headroom, voltage-drop limit, IP minimums), snapshotted when it was made, so a sent revision
+ * keeps being checked as it was. The workbench gets the same object (CircuitListResponse).
+ */
+export function circuitSettings(revision: QuoteRevision, firm: Pick<Organization, 'locale'>): CircuitSettings & CircuitCheckSettings {
+  return checkSettingsOf(revisionSettings(revision).design, profileFor(firm));
 }
 
 /** The stored design, parsed with the contract (stored JSON that no longer parses is a server fault). */
@@ -144,7 +154,7 @@ export async function rederiveRevision(em: EntityManager, revision: QuoteRevisio
     designs.flatMap((d) => productRefs(d.design).map((r) => r.id)),
   );
   const firm = await em.findOneOrFail(Organization, revision.organization.id);
-  const evalSettings = circuitSettings(firm);
+  const evalSettings = circuitSettings(revision, firm);
   const content = regenerateDerivedLines(
     revisionContent(revision),
     designs.map(({ circuit, design }) => ({

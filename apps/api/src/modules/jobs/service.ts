@@ -40,7 +40,7 @@ import {
 } from '@gloaming/engine';
 import { z } from 'zod';
 import { conflict, notFound } from '../../http/problem';
-import { circuitDesign, circuitSettings, firmProducts, listCircuits, productRefs, profileFor } from '../circuits/service';
+import { circuitDesign, circuitSettings, firmProducts, listCircuits, productRefs } from '../circuits/service';
 import { presentInstallerProduct, presentJobSummary } from './presenter';
 
 const jobStatuses: readonly string[] = JOB_STATUSES;
@@ -165,7 +165,7 @@ export async function jobCircuits(em: EntityManager, quote: Quote, revision: Quo
     firm.id,
     circuits.flatMap((c) => productRefs(circuitDesign(c)).map((r) => r.id)),
   );
-  const settings = circuitSettings(firm);
+  const settings = circuitSettings(revision, firm);
   return {
     products,
     circuits: circuits.map((circuit) => ({ circuit, evaluation: evaluateCircuit(circuitDesign(circuit), products, settings) })),
@@ -231,7 +231,7 @@ export async function jobPackData(
       customerPhone: customer.phone ?? '',
       accessNotes: quote.site?.accessNotes ?? '',
     },
-    profile: profileFor(quote.organization as Organization),
+    profile: circuitSettings(revision, quote.organization as Organization).profile,
     products: products.map(presentInstallerProduct),
     circuits: out,
     loads: loadGroups(picks),

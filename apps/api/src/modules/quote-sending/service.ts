@@ -43,7 +43,7 @@ export async function circuitBlockers(em: EntityManager, quote: Quote, revision:
     designs.flatMap((d) => productRefs(d.design).map((r) => r.id)),
   );
   const firm = await em.findOneOrFail(Organization, quote.organization.id);
-  const settings = circuitSettings(firm);
+  const settings = circuitSettings(revision, firm);
   const blockers: SendBlocker[] = [];
   for (const { circuit, design } of designs) {
     const evaluation = evaluateCircuit(design, products, settings);

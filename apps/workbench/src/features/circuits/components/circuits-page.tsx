@@ -10,6 +10,7 @@ import { useQuote } from '../../quotes/api/get-quote';
 import { useCatalogueChoices } from '../api/catalogue-choices';
 import { useCircuits } from '../api/list-circuits';
 import { useCreateCircuit } from '../api/save-circuit';
+import { CircuitCheckSettingsContext } from '../hooks/circuit-check-settings';
 import { AcceptanceHistory } from './acceptance-history';
 import { CircuitEditor } from './circuit-editor';
 
@@ -176,17 +177,19 @@ function CircuitsForRevision({
         </nav>
         <div className="min-w-0">
           {selected && list.data ? (
-            <CircuitEditor
-              key={`${selected.id}:${selected.version}`}
-              quoteId={quoteId}
-              revisionNumber={revisionNumber}
-              circuit={selected}
-              products={list.data.products}
-              choices={byKind}
-              profile={list.data.profile}
-              readOnly={readOnly}
-              onDeleted={() => select(null)}
-            />
+            <CircuitCheckSettingsContext value={list.data.checkSettings}>
+              <CircuitEditor
+                key={`${selected.id}:${selected.version}`}
+                quoteId={quoteId}
+                revisionNumber={revisionNumber}
+                circuit={selected}
+                products={list.data.products}
+                choices={byKind}
+                profile={list.data.profile}
+                readOnly={readOnly}
+                onDeleted={() => select(null)}
+              />
+            </CircuitCheckSettingsContext>
           ) : list.isPending ? (
             <p className="text-body text-ink-muted">Loading the circuits…</p>
           ) : null}

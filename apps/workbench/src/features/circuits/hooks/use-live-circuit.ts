@@ -1,10 +1,15 @@
 import type { CircuitDesign, CodeProfileId, Product } from '@gloaming/contracts';
 import { evaluateCircuit, type CircuitEvaluation } from '@gloaming/engine';
 import { useMemo } from 'react';
+import { useCircuitCheckSettings } from './circuit-check-settings';
 
-/** The engine's check of the design as it is on screen: the same function the api runs on save. */
+/**
+ * The engine's check of the design as it is on screen: the same function the api runs on save,
+ * with the same settings (the revision's, from the circuit list).
+ */
 export function useLiveCircuit(design: CircuitDesign, products: readonly Product[], profile: CodeProfileId): CircuitEvaluation {
-  return useMemo(() => evaluateCircuit(design, products, { profile }), [design, products, profile]);
+  const settings = useCircuitCheckSettings(profile);
+  return useMemo(() => evaluateCircuit(design, products, settings), [design, products, settings]);
 }
 
 function sameJson(a: unknown, b: unknown): boolean {
