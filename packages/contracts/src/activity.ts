@@ -37,6 +37,10 @@ export const ActivityQuery = z.object({
   /** Entries strictly older than this (the previous page's last `at`). */
   before: z.iso.datetime('Give a date-time like 2026-05-01T10:00:00.000Z.').optional(),
   limit: z.coerce.number().int('A whole number.').min(1, 'At least 1.').max(200, 'At most 200 entries a page.').default(50),
+  /** Only what this person did. */
+  actorId: z.uuid('Give a person’s id.').optional(),
+  /** Only quote history or only the firm's own (settings, logo, team). */
+  kind: z.enum(['quote', 'firm'], 'The kind is quote or firm.').optional(),
 });
 export type ActivityQuery = z.input<typeof ActivityQuery>;
 

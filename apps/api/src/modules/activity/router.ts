@@ -15,8 +15,15 @@ export function activityRouters(_deps: ModuleDeps, registry: RegisteredRoute[]) 
       policy: ownerOnly,
       schemas: { query: ActivityQuery },
       handler: async ({ res, em, input, auth }) => {
-        const { before, limit } = input.query;
-        res.json(await activityLog(em, auth.organizationId, { limit, ...(before ? { before: new Date(before) } : {}) }));
+        const { before, limit, actorId, kind } = input.query;
+        res.json(
+          await activityLog(em, auth.organizationId, {
+            limit,
+            ...(before ? { before: new Date(before) } : {}),
+            ...(actorId ? { actorId } : {}),
+            ...(kind ? { kind } : {}),
+          }),
+        );
       },
     }),
   ]);

@@ -3,7 +3,13 @@
  * quotes' history (QuoteEvent) in one list, newest first. recordFirmEvent appends to the
  * first; quote events are appended by the quotes module (appendQuoteEvent).
  */
-import { formatQuoteNumber, QUOTE_STATUS_LABELS, type ActivityEntry, type FirmEventType, type QuoteStatus } from '@gloaming/contracts';
+import {
+  formatQuoteNumber,
+  QUOTE_STATUS_LABELS,
+  type ActivityEntry,
+  type FirmEventType,
+  type QuoteStatus,
+} from '@gloaming/contracts';
 import { FirmEvent, Organization, QuoteEvent, User, type EntityManager } from '@gloaming/db';
 
 /** Append to the firm's history. Persisted, not flushed: the caller flushes with its change. */
@@ -72,8 +78,11 @@ const QUOTE_VERBS: Record<string, string> = {
 };
 
 function quoteSummary(e: QuoteEvent, reference: string): string {
-  const verb = QUOTE_VERBS[e.type] ?? (QUOTE_STATUS_LABELS[e.type as QuoteStatus] ? `${QUOTE_STATUS_LABELS[e.type as QuoteStatus]}:` : e.type);
-  const reason = e.type === 'declined' && typeof e.data.reason === 'string' && e.data.reason.trim() ? ` (“${e.data.reason.trim()}”)` : '';
+  const verb =
+    QUOTE_VERBS[e.type] ??
+    (QUOTE_STATUS_LABELS[e.type as QuoteStatus] ? `${QUOTE_STATUS_LABELS[e.type as QuoteStatus]}:` : e.type);
+  const reason =
+    e.type === 'declined' && typeof e.data.reason === 'string' && e.data.reason.trim() ? ` (“${e.data.reason.trim()}”)` : '';
   return `${verb} ${reference}${reason}`;
 }
 
@@ -84,27 +93,32 @@ export interface ActivityPage {
 
 /**
  * Newest first, `limit` at a time, strictly before `before`. With `quoteId`, only that quote's
- * history (no firm events).
+ * history (no firm events); `actorId` keeps what one person did, `kind` one of the two histories.
  */
 export async function activityLog(
   em: EntityManager,
   organizationId: string,
-  opts: { before?: Date; limit: number; quoteId?: string },
+  opts: { before?: Date; limit: number; quoteId?: string; actorId?: string; kind?: ActivityEntry['kind'] },
 ): Promise<ActivityPage> {
   const at = opts.before ? { $lt: opts.before } : undefined;
+  const actor = opts.actorId ? { actor: opts.actorId } : {};
   const take = opts.limit + 1;
-  const quoteEvents = await em.find(
-    QuoteEvent,
-    { organization: organizationId, ...(opts.quoteId ? { quote: opts.quoteId } : {}), ...(at ? { at } : {}) },
-    { populate: ['actor', 'quote'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
-  );
-  const firmEvents = opts.quoteId
-    ? []
-    : await em.find(
-        FirmEvent,
-        { organization: organizationId, ...(at ? { at } : {}) },
-        { populate: ['actor', 'subject'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
-      );
+  const quoteEvents =
+    opts.kind === 'firm'
+      ? []
+      : await em.find(
+          QuoteEvent,
+          { organization: organizationId, ...(opts.quoteId ? { quote: opts.quoteId } : {}), ...(at ? { at } : {}), ...actor },
+          { populate: ['actor', 'quote'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
+        );
+  const firmEvents =
+    opts.quoteId || opts.kind === 'quote'
+      ? []
+      : await em.find(
+          FirmEvent,
+          { organization: organizationId, ...(at ? { at } : {}), ...actor },
+          { populate: ['actor', 'subject'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
+        );
   const merged: { at: Date; entry: ActivityEntry }[] = [
     ...quoteEvents.map((e) => {
       const reference = formatQuoteNumber(e.quote.number);
