@@ -5,7 +5,14 @@
  * and that doing exactly what it says makes the circuit pass the check.
  */
 import { describe, expect, it } from 'vitest';
-import { adviseWiring, checkWiring, planConnectorBlocks, type TerminalSchedule, type WiringChange } from '../src/index';
+import {
+  adviseWiring,
+  asWiredSchedule,
+  checkWiring,
+  planConnectorBlocks,
+  type TerminalSchedule,
+  type WiringChange,
+} from '../src/index';
 
 const T = (...conductors: string[]) => ({ conductors });
 
@@ -151,6 +158,17 @@ describe('adviseWiring', () => {
     const a = adviseWiring(series3(), wired);
     expect(a.safeToPowerUp).toBe(false);
     expect(a.changes).toEqual([expect.objectContaining({ kind: 'remove', conductor: 'brown', subject: 'block:2/terminal:3' })]);
+  });
+
+  it('reads recorded terminals against the designed circuit, keeping its labels and terminal limits', () => {
+    const s = asWiredSchedule(series3(), [{ terminals: [T('driver+', 'fitting:1+', 'fitting:2+')] }]);
+    expect(s).toEqual({
+      kind: 'constant-current',
+      fittingCount: 3,
+      fittingLabels: ['Gate', 'Porch', 'Bench'],
+      blocks: [{ conductorsPerTerminal: 2, terminals: [T('driver+', 'fitting:1+', 'fitting:2+')] }],
+    });
+    expect(checkWiring(s).findings.map((f) => f.code)).toContain('terminal-over-limit');
   });
 
   it('accepts a different but correct wiring and records where it differs', () => {

@@ -2,6 +2,9 @@ import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, data, redirect } from 'react-router-dom';
 import { AcceptInvitePage } from '../features/invites/components/accept-invite-page';
 import { JobsHome } from '../features/jobs/components/jobs-home';
+import { JobPackPage } from '../features/jobs/components/job-pack-page';
+import { jobsQueryOptions } from '../features/jobs/api/list-jobs';
+import { jobPackQueryOptions } from '../features/jobs/api/get-job-pack';
 import { OverviewPage } from '../features/overview/components/overview-page';
 import { ForgotPasswordPage } from '../features/password-reset/components/forgot-password-page';
 import { ResetPasswordPage } from '../features/password-reset/components/reset-password-page';
@@ -153,6 +156,16 @@ export function createRouter(queryClient: QueryClient) {
           element: <JobsHome />,
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/jobs'));
+            await queryClient.prefetchQuery(jobsQueryOptions());
+            return null;
+          },
+        },
+        {
+          path: 'jobs/:jobId',
+          element: <JobPackPage />,
+          loader: async ({ request, params }) => {
+            await requireRole(queryClient, request, rolesFor('/jobs'));
+            if (params.jobId) await queryClient.prefetchQuery(jobPackQueryOptions(params.jobId));
             return null;
           },
         },

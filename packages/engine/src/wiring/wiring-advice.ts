@@ -282,6 +282,30 @@ function terminalsOfFinding(f: Finding, wired: Positions): string[] {
   return ends.flatMap((e) => (wired.get(e) ?? []).map((p) => subjectOf(p.at)));
 }
 
+/** Terminals as a person records them: each block's terminals and the conductor ends on each. */
+export interface RecordedBlock {
+  terminals: { conductors: readonly string[] }[];
+}
+
+/**
+ * A schedule recorded on site, as the check reads it: the designed circuit (kind, fittings,
+ * labels, each block's conductors per terminal) with the terminals as recorded.
+ */
+export function asWiredSchedule(designed: TerminalSchedule, blocks: readonly RecordedBlock[]): TerminalSchedule {
+  return {
+    kind: designed.kind,
+    fittingCount: designed.fittingCount,
+    ...(designed.fittingLabels ? { fittingLabels: designed.fittingLabels } : {}),
+    blocks: blocks.map((b, i) => {
+      const limit = designed.blocks[i]?.conductorsPerTerminal;
+      return {
+        ...(limit !== undefined ? { conductorsPerTerminal: limit } : {}),
+        terminals: b.terminals.map((t) => ({ conductors: [...t.conductors] })),
+      };
+    }),
+  };
+}
+
 /**
  * Advise on a schedule as wired on site. `designed` is the schedule the installer was given
  * (from `planConnectorBlocks`); `asWired` must describe the same circuit (kind and fitting count).

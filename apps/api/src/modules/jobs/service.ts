@@ -28,6 +28,7 @@ import {
 } from '@gloaming/db';
 import {
   adviseWiring,
+  asWiredSchedule,
   circuitPickList,
   commissioningPlan,
   evaluateCircuit,
@@ -35,7 +36,6 @@ import {
   loadGroups,
   type BlockPlan,
   type CircuitEvaluation,
-  type TerminalSchedule,
   type WiringAdvice,
 } from '@gloaming/engine';
 import { z } from 'zod';
@@ -94,19 +94,6 @@ function slackBp(revision: QuoteRevision): number {
 }
 
 const StoredBlocks = z.array(AsWiredBlock);
-
-/** The schedule a person recorded, as the wiring check reads it: the design's circuit, their terminals. */
-export function asWiredSchedule(plan: BlockPlan, blocks: readonly AsWiredBlock[]): TerminalSchedule {
-  return {
-    kind: 'constant-current',
-    fittingCount: plan.fittingCount,
-    fittingLabels: plan.fittingLabels,
-    blocks: blocks.map((b, i) => ({
-      ...(plan.blocks[i] ? { conductorsPerTerminal: plan.blocks[i].conductorsPerTerminal } : {}),
-      terminals: b.terminals.map((t) => ({ conductors: [...t.conductors] })),
-    })),
-  };
-}
 
 function presentAdvice(a: WiringAdvice): AsWiredView['advice'] {
   return {

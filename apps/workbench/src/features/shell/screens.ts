@@ -7,7 +7,7 @@ export const SCREENS = [
   { path: '/quotes', label: 'Quotes', roles: ['owner', 'estimator'] },
   { path: '/customers', label: 'Customers', roles: ['owner', 'estimator'] },
   { path: '/catalogue', label: 'Catalogue', roles: ['owner', 'estimator'] },
-  { path: '/jobs', label: 'Jobs', roles: ['owner', 'installer'] },
+  { path: '/jobs', label: 'Jobs', roles: ['owner', 'estimator', 'installer'] },
 ] as const satisfies ReadonlyArray<{ path: string; label: string; roles: ReadonlyArray<Role> }>;
 
 export type ScreenPath = (typeof SCREENS)[number]['path'];

@@ -1,6 +1,10 @@
+import { QUOTE_STATUS_LABELS } from '@gloaming/contracts';
+import { Link } from 'react-router-dom';
+import { Badge } from '../../../components/ui/badge';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
+import { useJobs } from '../api/list-jobs';
 
 const PACK_CONTENTS = [
   { name: 'Site and revision', note: 'the address, access notes and the approved design' },
@@ -10,30 +14,58 @@ const PACK_CONTENTS = [
 
 export function JobsHome() {
   const user = useSignedInUser();
+  const { data } = useJobs();
+  const jobs = data?.jobs ?? [];
   return (
     <>
       <title>{`Jobs · ${user.organization.name} · Gloaming`}</title>
       <PageHeader eyebrow={user.organization.name} title="Jobs">
         Approved work to install, with everything needed on site.
       </PageHeader>
-      <EmptyState illustration={<JobPackIllustration />} title="Nothing to install yet">
-        <p>
-          A job appears here once a homeowner approves a quote and the deposit is paid. Each job carries an installer’s pack taken
-          from the approved revision, so what is fitted matches what was sold.
-        </p>
-        <ul aria-label="What each job includes" className="mt-2 grid gap-3 text-left sm:grid-cols-3">
-          {PACK_CONTENTS.map((item) => (
-            <li key={item.name} className="rounded-control bg-canvas px-3 py-3 ring-1 ring-line">
-              <p className="font-semibold text-ink">{item.name}</p>
-              <p className="text-caption text-ink-muted">{item.note}</p>
+      {jobs.length > 0 ? (
+        <ul aria-label="Approved jobs" className="grid gap-3 md:grid-cols-2">
+          {jobs.map((job) => (
+            <li key={job.id}>
+              <Link
+                to={`/jobs/${job.id}`}
+                className="flex flex-col gap-1 rounded-card bg-surface px-5 py-4 shadow-card ring-1 ring-line hover:ring-dusk-300 focus-visible:ring-2 focus-visible:ring-dusk-500"
+              >
+                <span className="flex items-center justify-between gap-3">
+                  <span className="font-mono text-caption text-ink-muted">{job.reference}</span>
+                  <Badge tone={job.status === 'won' ? 'positive' : 'pending'}>{QUOTE_STATUS_LABELS[job.status]}</Badge>
+                </span>
+                <span className="text-lead font-semibold text-ink">{job.title || job.customerName}</span>
+                <span className="text-body text-ink">{job.customerName}</span>
+                <span className="text-caption text-ink-muted">
+                  {[job.siteLabel, ...job.siteAddress, job.postcode].filter(Boolean).join(', ')}
+                </span>
+                <span className="text-caption text-ink-muted">
+                  {job.circuitCount} circuit{job.circuitCount === 1 ? '' : 's'} · revision {job.revisionNumber}
+                </span>
+              </Link>
             </li>
           ))}
         </ul>
-        <p className="text-caption">
-          Gloaming plans the low-voltage side. Mains connections, RCD protection, isolation and certification are work for a
-          licensed electrician under your local wiring rules.
-        </p>
-      </EmptyState>
+      ) : (
+        <EmptyState illustration={<JobPackIllustration />} title="Nothing to install yet">
+          <p>
+            A job appears here once a homeowner approves a quote and the deposit is paid. Each job carries an installer’s pack
+            taken from the approved revision, so what is fitted matches what was sold.
+          </p>
+          <ul aria-label="What each job includes" className="mt-2 grid gap-3 text-left sm:grid-cols-3">
+            {PACK_CONTENTS.map((item) => (
+              <li key={item.name} className="rounded-control bg-canvas px-3 py-3 ring-1 ring-line">
+                <p className="font-semibold text-ink">{item.name}</p>
+                <p className="text-caption text-ink-muted">{item.note}</p>
+              </li>
+            ))}
+          </ul>
+          <p className="text-caption">
+            Gloaming plans the low-voltage side. Mains connections, RCD protection, isolation and certification are work for a
+            licensed electrician under your local wiring rules.
+          </p>
+        </EmptyState>
+      )}
     </>
   );
 }
