@@ -9,18 +9,6 @@ import {
   type InstallationLocation,
   type Product,
 } from '@gloaming/contracts';
-import {
-  DndContext,
-  KeyboardSensor,
-  PointerSensor,
-  closestCenter,
-  useSensor,
-  useSensors,
-  type Announcements,
-  type DragEndEvent,
-} from '@dnd-kit/core';
-import { SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
-import { CSS } from '@dnd-kit/utilities';
 import type { CircuitEvaluation, CircuitFinding } from '@gloaming/engine';
 import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { Button } from '../../../components/ui/button';
@@ -40,6 +28,7 @@ import {
 } from '../design-edits';
 import { FindingList, findingsAbout } from './finding-list';
 import { ProductSelect, fmt } from './product-select';
+import { SortableRows, useSortableRow } from './sortable-rows';
 
 const LOCATION_OPTIONS = INSTALLATION_LOCATIONS.map((l) => ({ value: l, label: INSTALLATION_LOCATION_LABELS[l] }));
 const METHOD_OPTIONS = CABLE_METHODS.map((m) => ({ value: m, label: CABLE_METHOD_LABELS[m] }));
@@ -155,31 +144,7 @@ export function CcCircuitForm({
     ...Array.from({ length: blockChoices }, (_, k) => ({ value: String(k + 1), label: `Block ${k + 1}` })),
   ];
 
-  // Drag by the handle (pointer, or Space then arrows from the keyboard); Alt+Up/Down still moves the row.
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
   const ids = design.fittings.map((f) => f.id);
-  const position = (id: string | number | undefined) => ids.indexOf(String(id)) + 1;
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up fitting ${position(active.id)}. Arrow keys move it, Space drops it, Escape cancels.`,
-    onDragOver: ({ active, over }) =>
-      over
-        ? `Fitting ${position(active.id)} is over position ${position(over.id)}.`
-        : `Fitting ${position(active.id)} is not over a place.`,
-    onDragEnd: ({ active, over }) =>
-      over
-        ? `Fitting ${position(active.id)} dropped at position ${position(over.id)}.`
-        : `Fitting ${position(active.id)} dropped.`,
-    onDragCancel: ({ active }) => `Moving fitting ${position(active.id)} cancelled; it stays where it was.`,
-  };
-  const onDragEnd = ({ active, over }: DragEndEvent) => {
-    if (!over || active.id === over.id) return;
-    const from = ids.indexOf(String(active.id));
-    const to = ids.indexOf(String(over.id));
-    if (from >= 0 && to >= 0) onChange(moveFitting(design, from, to - from));
-  };
 
   return (
     <div className="flex flex-col gap-6">
@@ -253,127 +218,118 @@ export function CcCircuitForm({
               </th>
             </tr>
           </thead>
-          <DndContext
-            sensors={sensors}
-            collisionDetection={closestCenter}
-            onDragEnd={onDragEnd}
-            accessibility={{ announcements }}
-          >
-            <SortableContext items={ids} strategy={verticalListSortingStrategy}>
-              <tbody ref={tableRef}>
-                {design.fittings.map((f, i) => {
-                  const at = evaluation.series?.fittings[i];
-                  const rowFindings = findingsAbout(evaluation.findings, `fitting:${i + 1}`);
-                  return (
-                    <FittingRows
-                      key={f.id}
-                      index={i}
-                      count={design.fittings.length}
-                      onKeyDown={onRowKey(i)}
-                      rowId={f.id}
-                      findings={rowFindings}
-                      onAcknowledge={onAcknowledge}
-                    >
-                      <td className="py-1 pr-2">
-                        <ProductSelect
-                          label={`Fitting ${i + 1} product`}
-                          products={choices.fitting}
-                          value={f.productId}
-                          dataCol="product"
-                          onChange={(id) =>
-                            id &&
-                            onChange(
-                              updateFitting(design, i, { productId: id, driveCurrentA: defaultDriveCurrentA(products.get(id)) }),
-                            )
-                          }
-                        />
-                      </td>
-                      <td className="py-1 pr-2">
-                        <TextField
-                          label={`Fitting ${i + 1} label`}
-                          value={f.label}
-                          data-col="label"
-                          onChange={(e) => onChange(updateFitting(design, i, { label: e.target.value }))}
-                        />
-                      </td>
-                      <td className="py-1 pr-2">
-                        <SelectField
-                          label={`Fitting ${i + 1} location`}
-                          options={LOCATION_OPTIONS}
-                          value={f.location}
-                          data-col="location"
-                          onChange={(e) =>
-                            onChange(updateFitting(design, i, { location: e.target.value as InstallationLocation }))
-                          }
-                        />
-                      </td>
-                      <td className="py-1 pr-2">
-                        <TextField
-                          label={`Fitting ${i + 1} drive current (mA)`}
-                          type="number"
-                          min={1}
-                          step={1}
-                          data-col="current"
-                          value={String(Math.round(f.driveCurrentA * 1000))}
-                          onChange={(e) => {
-                            const mA = Number(e.target.value);
-                            if (Number.isFinite(mA) && mA > 0) onChange(updateFitting(design, i, { driveCurrentA: mA / 1000 }));
-                          }}
-                        />
-                      </td>
-                      <td className="py-1 pr-2">
-                        <SelectField
-                          label={`Fitting ${i + 1} connector block`}
-                          options={blockOptionsFor(i)}
-                          value={design.assignment === null || blocks[i] === null ? 'auto' : String(blocks[i])}
-                          data-col="block"
-                          disabled={!evaluation.blocks && design.assignment === null}
-                          onChange={(e) =>
-                            onChange(
-                              e.target.value === 'auto'
-                                ? letEngineAssign(design)
-                                : assignFittingToBlock(design, blocks, i, Number(e.target.value)),
-                            )
-                          }
-                        />
-                      </td>
-                      <td className="py-1 pr-2 font-mono">{at ? `${fmt(at.forwardVoltageV)} V` : '—'}</td>
-                      <td className="py-1 whitespace-nowrap">
-                        <Button
-                          variant="quiet"
-                          className="h-9 px-2"
-                          aria-label={`Move fitting ${i + 1} up`}
-                          disabled={i === 0}
-                          onClick={() => move(i, -1, 'up')}
-                          data-col="up"
-                        >
-                          ↑
-                        </Button>
-                        <Button
-                          variant="quiet"
-                          className="h-9 px-2"
-                          aria-label={`Move fitting ${i + 1} down`}
-                          disabled={i === design.fittings.length - 1}
-                          onClick={() => move(i, 1, 'down')}
-                          data-col="down"
-                        >
-                          ↓
-                        </Button>
-                        <Button
-                          variant="quiet"
-                          className="h-9 px-2"
-                          aria-label={`Remove fitting ${i + 1}`}
-                          onClick={() => onChange(removeFitting(design, i))}
-                        >
-                          ✕
-                        </Button>
-                      </td>
-                    </FittingRows>
-                  );
-                })}
-              </tbody>
-            </SortableContext>
-          </DndContext>
+          <SortableRows ids={ids} what="fitting" onMove={(from, to) => onChange(moveFitting(design, from, to - from))}>
+            <tbody ref={tableRef}>
+              {design.fittings.map((f, i) => {
+                const at = evaluation.series?.fittings[i];
+                const rowFindings = findingsAbout(evaluation.findings, `fitting:${i + 1}`);
+                return (
+                  <FittingRows
+                    key={f.id}
+                    index={i}
+                    count={design.fittings.length}
+                    onKeyDown={onRowKey(i)}
+                    rowId={f.id}
+                    findings={rowFindings}
+                    onAcknowledge={onAcknowledge}
+                  >
+                    <td className="py-1 pr-2">
+                      <ProductSelect
+                        label={`Fitting ${i + 1} product`}
+                        products={choices.fitting}
+                        value={f.productId}
+                        dataCol="product"
+                        onChange={(id) =>
+                          id &&
+                          onChange(
+                            updateFitting(design, i, { productId: id, driveCurrentA: defaultDriveCurrentA(products.get(id)) }),
+                          )
+                        }
+                      />
+                    </td>
+                    <td className="py-1 pr-2">
+                      <TextField
+                        label={`Fitting ${i + 1} label`}
+                        value={f.label}
+                        data-col="label"
+                        onChange={(e) => onChange(updateFitting(design, i, { label: e.target.value }))}
+                      />
+                    </td>
+                    <td className="py-1 pr-2">
+                      <SelectField
+                        label={`Fitting ${i + 1} location`}
+                        options={LOCATION_OPTIONS}
+                        value={f.location}
+                        data-col="location"
+                        onChange={(e) => onChange(updateFitting(design, i, { location: e.target.value as InstallationLocation }))}
+                      />
+                    </td>
+                    <td className="py-1 pr-2">
+                      <TextField
+                        label={`Fitting ${i + 1} drive current (mA)`}
+                        type="number"
+                        min={1}
+                        step={1}
+                        data-col="current"
+                        value={String(Math.round(f.driveCurrentA * 1000))}
+                        onChange={(e) => {
+                          const mA = Number(e.target.value);
+                          if (Number.isFinite(mA) && mA > 0) onChange(updateFitting(design, i, { driveCurrentA: mA / 1000 }));
+                        }}
+                      />
+                    </td>
+                    <td className="py-1 pr-2">
+                      <SelectField
+                        label={`Fitting ${i + 1} connector block`}
+                        options={blockOptionsFor(i)}
+                        value={design.assignment === null || blocks[i] === null ? 'auto' : String(blocks[i])}
+                        data-col="block"
+                        disabled={!evaluation.blocks && design.assignment === null}
+                        onChange={(e) =>
+                          onChange(
+                            e.target.value === 'auto'
+                              ? letEngineAssign(design)
+                              : assignFittingToBlock(design, blocks, i, Number(e.target.value)),
+                          )
+                        }
+                      />
+                    </td>
+                    <td className="py-1 pr-2 font-mono">{at ? `${fmt(at.forwardVoltageV)} V` : '—'}</td>
+                    <td className="py-1 whitespace-nowrap">
+                      <Button
+                        variant="quiet"
+                        className="h-9 px-2"
+                        aria-label={`Move fitting ${i + 1} up`}
+                        disabled={i === 0}
+                        onClick={() => move(i, -1, 'up')}
+                        data-col="up"
+                      >
+                        ↑
+                      </Button>
+                      <Button
+                        variant="quiet"
+                        className="h-9 px-2"
+                        aria-label={`Move fitting ${i + 1} down`}
+                        disabled={i === design.fittings.length - 1}
+                        onClick={() => move(i, 1, 'down')}
+                        data-col="down"
+                      >
+                        ↓
+                      </Button>
+                      <Button
+                        variant="quiet"
+                        className="h-9 px-2"
+                        aria-label={`Remove fitting ${i + 1}`}
+                        onClick={() => onChange(removeFitting(design, i))}
+                      >
+                        ✕
+                      </Button>
+                    </td>
+                  </FittingRows>
+                );
+              })}
+            </tbody>
+          </SortableRows>
         </table>
         {design.assignment !== null ? (
           <p className="flex items-center gap-3 text-caption text-ink-muted">
@@ -528,35 +484,17 @@ function FittingRows({
   onAcknowledge: (f: CircuitFinding) => void;
   onKeyDown: (e: KeyboardEvent<HTMLTableRowElement>) => void;
 }) {
-  const { attributes, listeners, setNodeRef, setActivatorNodeRef, transform, transition, isDragging } = useSortable({
-    id: rowId,
-  });
+  const { row, handle, isDragging } = useSortableRow(rowId, `fitting ${index + 1}`, index);
   return (
     <>
       <tr
-        ref={setNodeRef}
-        style={{ transform: CSS.Translate.toString(transform), transition }}
+        {...row}
         data-fitting-row={rowId}
-        data-dragging={isDragging ? 'true' : undefined}
         onKeyDown={onKeyDown}
         aria-label={`Fitting ${index + 1} of ${count}`}
         className={`border-t border-line align-bottom ${isDragging ? 'relative z-10 bg-lamp-50 shadow-raised' : ''}`}
       >
-        <td className="py-1 pr-1 font-mono text-ink-muted">
-          <button
-            type="button"
-            ref={setActivatorNodeRef}
-            {...attributes}
-            {...listeners}
-            aria-label={`Drag fitting ${index + 1} to reorder`}
-            aria-roledescription="sortable fitting"
-            data-drag-handle={rowId}
-            className="inline-flex h-9 cursor-grab touch-none items-center gap-1 rounded-control px-1 hover:bg-mist-100 focus-visible:ring-2 focus-visible:ring-lamp-400 focus-visible:outline-none active:cursor-grabbing"
-          >
-            <span aria-hidden="true">⠿</span>
-            {index + 1}
-          </button>
-        </td>
+        <td className="py-1 pr-1 font-mono text-ink-muted">{handle}</td>
         {children}
       </tr>
       {findings.length > 0 ? (
