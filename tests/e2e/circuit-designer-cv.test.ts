@@ -214,6 +214,22 @@ describe('circuit designer: constant voltage, split, blocks, drag, currents, sen
     await editor.getByRole('button', { name: 'Save circuit' }).click();
     await expect.poll(() => editor.getByText('the server’s check matches this page').count(), { timeout: 10_000 }).toBe(1);
     await page.screenshot({ path: screenshotPath('circuit-designer-cv-saved'), fullPage: true });
+
+    // Reorder the run: drag fitting 1 (marked by its location) below fitting 2, then Alt+Up brings it back.
+    await boards.getByLabel('Location').nth(0).selectOption('under-decking');
+    const handle = boards.getByRole('button', { name: 'Drag fitting 1 of run Boards to reorder' });
+    const from = (await handle.boundingBox())!;
+    const to = (await boards.locator('[data-cv-row]').nth(1).boundingBox())!;
+    await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+    await page.mouse.down();
+    for (let s = 1; s <= 10; s++)
+      await page.mouse.move(from.x + from.width / 2, from.y + (to.y + to.height * 0.75 - from.y) * (s / 10));
+    await page.mouse.up();
+    await expect.poll(() => boards.getByLabel('Location').nth(1).inputValue()).toBe('under-decking');
+    expect(await boards.getByLabel('Location').nth(0).inputValue()).toBe('exposed-outdoor');
+    await boards.getByLabel('Span from previous (m)').nth(1).press('Alt+ArrowUp');
+    await expect.poll(() => boards.getByLabel('Location').nth(0).inputValue()).toBe('under-decking');
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-col'))).toBe('span');
     expect(problems.filter((p) => !/status of 401/.test(p))).toEqual([]);
   }, 120_000);
 
@@ -238,11 +254,21 @@ describe('circuit designer: constant voltage, split, blocks, drag, currents, sen
     const nav = page.getByRole('navigation', { name: 'Circuits by area' });
     await expect.poll(() => nav.getByRole('listitem').count(), { timeout: 10_000 }).toBe(2);
     // each string now on the 350 mA driver with no blocking error, the fittings shared between them
-    const list = await page.evaluate(async (id) => (await fetch(`/api/quotes/${id}/revisions/1/circuits`)).json(), quoteId);
-    const circuits = list.circuits as { design: { fittings: unknown[]; driverProductId: string }; result: { ok: boolean } }[];
+    // (the new circuit is created first, then the original saved with its share: wait for both)
+    type Stored = { design: { fittings: unknown[]; driverProductId: string | null }; result: { ok: boolean } }[];
+    const stored = () =>
+      page.evaluate(
+        async (id) => (await (await fetch(`/api/quotes/${id}/revisions/1/circuits`)).json()).circuits,
+        quoteId,
+      ) as Promise<Stored>;
+    await expect
+      .poll(async () => (await stored()).map((c) => c.design.fittings.length).reduce((a, b) => a + b, 0), { timeout: 10_000 })
+      .toBe(18);
+    const circuits = await stored();
     expect(circuits).toHaveLength(2);
-    expect(circuits.map((c) => c.design.fittings.length).reduce((a, b) => a + b, 0)).toBe(18);
-    expect(circuits.every((c) => c.design.driverProductId === ids.drv350 && c.result.ok)).toBe(true);
+    expect(circuits.every((c) => c.design.fittings.length > 0 && c.design.driverProductId === ids.drv350 && c.result.ok)).toBe(
+      true,
+    );
     await page.screenshot({ path: screenshotPath('circuit-designer-split-applied'), fullPage: true });
     expect(problems.filter((p) => !/status of 401/.test(p))).toEqual([]);
   }, 180_000);
@@ -387,6 +413,11 @@ describe('circuit designer: constant voltage, split, blocks, drag, currents, sen
       )
       .toBe(1);
     await expect.poll(() => page.getByText('No blocking errors').count()).toBe(1);
+    const history = page.getByRole('region', { name: 'Accepted errors, from the quote’s history' });
+    await expect.poll(() => history.textContent(), { timeout: 10_000 }).toContain('Circuit error accepted');
+    expect(await history.textContent()).toContain('voltage-above-window');
+    expect(await history.textContent()).toContain(estimator.name);
+    await page.screenshot({ path: screenshotPath('circuit-designer-accepted'), fullPage: true });
     const events = await page.evaluate(async (id) => (await (await fetch(`/api/quotes/${id}/events`)).json()).events, quoteId);
     expect(events.find((e: { type: string }) => e.type === 'finding-accepted')).toMatchObject({
       actor: { name: estimator.name },
@@ -404,7 +435,10 @@ describe('circuit designer: constant voltage, split, blocks, drag, currents, sen
     await expect.poll(() => again.getByRole('button', { name: 'Send quote' }).isDisabled()).toBe(false);
     expect(await again.getByTestId('send-blockers').count()).toBe(0);
     await again.getByRole('button', { name: 'Send quote' }).click();
-    await page.getByText(`Sent to ${customerEmail}.`).waitFor({ timeout: 15_000 });
+    await page
+      .getByText(`Sent to ${customerEmail}.`)
+      .waitFor({ timeout: 15_000 })
+      .finally(() => page.screenshot({ path: screenshotPath('circuit-designer-sent') }));
     expect(problems.filter((p) => !/status of (401|422)/.test(p))).toEqual([]);
   }, 240_000);
 });
