@@ -31,6 +31,10 @@ import { NewCustomerPage } from '../features/customers/components/new-customer-p
 import { customerQueryFromSearch } from '../features/customers/customer-list-query';
 import { FiguresPage, figuresQueryFrom } from '../features/figures/components/figures-page';
 import { figuresQueryOptions } from '../features/figures/api/get-figures';
+import { ActivityPage, activityFiltersFrom } from '../features/activity/components/activity-page';
+import { firmActivityQueryOptions } from '../features/activity/api/list-activity';
+import { FirmSettingsPage } from '../features/firm-settings/components/firm-settings-page';
+import { firmSettingsQueryOptions } from '../features/firm-settings/api/get-firm-settings';
 import { RouteError } from './route-error';
 import { requireRole, requireUser, signedOutOnly } from './route-guards';
 
@@ -71,6 +75,25 @@ export function createRouter(queryClient: QueryClient) {
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/figures'));
             void queryClient.prefetchQuery(figuresQueryOptions(figuresQueryFrom(new URL(request.url).searchParams)));
+            return null;
+          },
+        },
+        {
+          path: 'activity',
+          element: <ActivityPage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/activity'));
+            void queryClient.prefetchInfiniteQuery(firmActivityQueryOptions(activityFiltersFrom(new URL(request.url).searchParams)));
+            void queryClient.prefetchQuery(teamQueryOptions());
+            return null;
+          },
+        },
+        {
+          path: 'settings',
+          element: <FirmSettingsPage />,
+          loader: async ({ request }) => {
+            await requireRole(queryClient, request, rolesFor('/settings'));
+            await queryClient.prefetchQuery(firmSettingsQueryOptions());
             return null;
           },
         },

@@ -4,10 +4,12 @@ import type { Role } from '@gloaming/contracts';
 export const SCREENS = [
   { path: '/overview', label: 'Overview', roles: ['owner'] },
   { path: '/figures', label: 'Figures', roles: ['owner'] },
+  { path: '/activity', label: 'Activity', roles: ['owner'] },
   { path: '/quotes', label: 'Quotes', roles: ['owner', 'estimator'] },
   { path: '/customers', label: 'Customers', roles: ['owner', 'estimator'] },
   { path: '/catalogue', label: 'Catalogue', roles: ['owner', 'estimator'] },
   { path: '/jobs', label: 'Jobs', roles: ['owner', 'estimator', 'installer'] },
+  { path: '/settings', label: 'Settings', roles: ['owner'] },
 ] as const satisfies ReadonlyArray<{ path: string; label: string; roles: ReadonlyArray<Role> }>;
 
 export type ScreenPath = (typeof SCREENS)[number]['path'];

@@ -15,6 +15,7 @@ import { QuotePhotosPanel } from '../../photos/components/quote-photos-panel';
 import { QuoteSendControls } from '../../quote-sending/components/quote-send-controls';
 import { HomeownerPanel } from '../../quote-conversation/components/homeowner-panel';
 import { QuoteDepositsPanel } from '../../deposits/components/quote-deposits-panel';
+import { QuoteActivityPanel } from '../../activity/components/quote-activity-panel';
 
 /** The engine's totals, or null when the document is one the engine refuses (shown as a notice). */
 function engineTotals(content: EstimateContent, revision: QuoteRevisionView): QuoteTotals | null {
@@ -198,6 +199,7 @@ function QuoteEditor({ detail, revision, earlier }: { detail: QuoteDetailRespons
           {user.role === 'installer' ? null : <TotalsPanel totals={totals} currency={settings.currency} locale={settings.locale} adjustments={{ content: editor.content, onChange: editor.change, firmDepositBp: settings.depositPercentBp, readOnly }} />}
           {user.role === 'installer' ? null : <QuotePhotosPanel quoteId={quote.id} />}
           {user.role === 'installer' ? null : <QuoteDepositsPanel quoteId={quote.id} locale={settings.locale} canRefund={user.role === 'owner'} />}
+          {user.role === 'owner' ? <QuoteActivityPanel quoteId={quote.id} /> : null}
           <KeyHelp />
         </div>
       </div>
