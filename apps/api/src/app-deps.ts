@@ -1,7 +1,8 @@
 import type { Database } from '@gloaming/db';
 import type { Auth } from './auth/lucia';
 import type { AppConfig } from './config/env';
-import type { Mailer } from './mail/mailer';
+import type { MailTransport } from './mail/mailer';
+import type { Outbox, OutboxPolicy } from './mail/outbox';
 import type { FileStorage } from './storage/storage';
 
 export interface Logger {
@@ -13,13 +14,18 @@ export interface Logger {
 export interface AppDeps {
   orm: Database;
   config: AppConfig;
-  mailer: Mailer;
+  /** The mail server connection. Modules never use it directly: createApp wraps it in the outbox. */
+  mailer: MailTransport;
+  /** Retry timings of the e-mail outbox (tests shorten them); defaults in outbox.ts. */
+  outboxPolicy?: Partial<OutboxPolicy>;
   logger?: Logger;
   /** Uploaded files; defaults to DATA_DIR/files. */
   storage?: FileStorage;
 }
 
 /** What modules receive when they build their routers. */
-export interface ModuleDeps extends Required<AppDeps> {
+export interface ModuleDeps extends Required<Omit<AppDeps, 'mailer' | 'outboxPolicy'>> {
   auth: Auth;
+  /** Every e-mail goes through the outbox: `deps.mailer.send(mail, { em })`. */
+  mailer: Outbox;
 }

@@ -7,6 +7,7 @@ import { checkOrigin, loadSession } from './auth/middleware';
 import { apiNotFound, errorHandler } from './http/problem';
 import type { RegisteredRoute } from './http/routes';
 import { staticApp } from './http/static-apps';
+import { createOutbox, type Outbox } from './mail/outbox';
 import { LocalFileStorage } from './storage/storage';
 import { healthRouter } from './modules/health/router';
 import { organizationRouter } from './modules/organization/router';
@@ -37,6 +38,8 @@ export interface GloamingApp {
   app: Express;
   /** Every api route with its policy: the route-matrix test and the docs read this. */
   routes: RegisteredRoute[];
+  /** The e-mail outbox: main.ts runs its delivery worker; tests wait on it with `idle()`. */
+  outbox: Outbox;
 }
 
 const consoleLogger: Logger = {
@@ -47,8 +50,15 @@ const consoleLogger: Logger = {
 /** Build the Express app. Never listens; `main.ts` does. */
 export function createApp(options: CreateAppOptions): GloamingApp {
   const logger = options.logger ?? consoleLogger;
+  const outbox = createOutbox({
+    orm: options.orm,
+    transport: options.mailer,
+    logger,
+    ...(options.outboxPolicy ? { policy: options.outboxPolicy } : {}),
+  });
   const deps: ModuleDeps = {
     ...options,
+    mailer: outbox,
     logger,
     storage: options.storage ?? new LocalFileStorage(options.config.dataDir),
     auth: createLucia(options.orm, options.config.secureCookies, options.config.sessions),
@@ -127,5 +137,5 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   if (options.frontEnds?.workbenchDir) app.use(staticApp('/', options.frontEnds.workbenchDir));
 
   app.use(errorHandler((msg, err) => logger.error(msg, err)));
-  return { app, routes };
+  return { app, routes, outbox };
 }

@@ -13,6 +13,7 @@ import type { PaymentFake } from '@gloaming/fakes';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
 import { createSmtpMailer } from './mail/mailer';
+import { startOutboxWorker } from './mail/outbox';
 import { startExpirySweep } from './modules/portal/expiry-sweep';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -73,7 +74,7 @@ async function main(): Promise<void> {
   }
 
   const mailer = createSmtpMailer(config.mail);
-  const { app } = createApp({
+  const { app, outbox } = createApp({
     orm,
     config,
     mailer,
@@ -110,6 +111,8 @@ async function main(): Promise<void> {
   console.log(lines.join('\n') + '\n');
 
   const stopExpirySweep = startExpirySweep(orm, console);
+  // E-mail: pending messages (a restart's leftovers included) go out now, retries every few seconds.
+  const stopOutbox = startOutboxWorker(outbox, console);
 
   let closing = false;
   const shutdown = async (signal: string) => {
@@ -121,6 +124,7 @@ async function main(): Promise<void> {
     await new Promise<void>((r) => server.close(() => r()));
     clearTimeout(timer);
     stopExpirySweep();
+    await stopOutbox();
     mailer.close();
     await stopFakes?.();
     await orm.close(true);

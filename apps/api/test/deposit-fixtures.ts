@@ -7,7 +7,7 @@ import type { FirmFixture } from '@gloaming/db/testing';
 import { createApp, type GloamingApp } from '../src/app';
 import { hashToken } from '../src/auth/tokens';
 import type { AppConfig } from '../src/config/env';
-import { createSmtpMailer, type Mailer } from '../src/mail/mailer';
+import { createSmtpMailer, type MailTransport } from '../src/mail/mailer';
 import {
   appendQuoteEvent,
   markRevisionSent,
@@ -51,7 +51,7 @@ export async function startPaymentsRig(t: TestServer, opts: { apiPort?: number }
       api: { host: '127.0.0.1', port: opts.apiPort ?? fake.port, protocol: 'http' },
     },
   };
-  const mailer: Mailer = createSmtpMailer(config.mail);
+  const mailer: MailTransport = createSmtpMailer(config.mail);
   const built = createApp({ orm: t.orm, config, mailer, logger: { info: () => {}, error: () => {} } });
   const server: Server = createServer(built.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -66,6 +66,7 @@ export async function startPaymentsRig(t: TestServer, opts: { apiPort?: number }
       await fake.close();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await built.outbox.idle();
       mailer.close();
     },
   };

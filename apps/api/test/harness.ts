@@ -70,3 +70,4 @@ export function tokenFromMail(text: string): string {
   if (!match) throw new Error(`no token link in: ${text}`);
   return match[1]!;
 }
+      await built.outbox.idle();

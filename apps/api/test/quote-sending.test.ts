@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PortalToken, Quote, QuoteEvent, QuoteRevision } from '@gloaming/db';
+import { OutboxMessage, PortalToken, Quote, QuoteEvent, QuoteRevision } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote, CUSTOMER_NAME, GARDEN_TOTAL_TEXT, gardenEstimate } from './estimate-fixture';
 import { canonicalJson } from '@gloaming/db';
@@ -146,20 +146,25 @@ describe('sending a quote', () => {
   });
 });
 
-describe('when the mail server refuses', () => {
-  it('answers 502 and leaves the revision a draft with no link', async () => {
+describe('when the mail server is down', () => {
+  it('records the send, answers 201 "queued" and keeps the e-mail in the outbox', async () => {
     const down = await startTestServer({ SMTP_PORT: '1' }); // nothing listens on port 1
     try {
       const g = await createGardenQuote(down.orm.em.fork(), down.firmA);
       const agent = await down.signIn('estimator');
       const res = await agent.post(`${base(g)}/send`).send({});
-      expect(res.status).toBe(502);
-      expect(res.body.type).toBe('/problems/mail-not-sent');
+      expect(res.status).toBe(201);
+      expect(res.body.delivery).toBe('queued');
+      expect(res.body.sending.links[0]).toMatchObject({ delivery: 'queued' });
       const em = down.orm.em.fork();
-      expect((await em.findOneOrFail(QuoteRevision, g.revision.id)).state).toBe('draft');
-      expect((await em.findOneOrFail(Quote, g.quote.id)).status).toBe('draft');
-      expect(await em.count(PortalToken, { revision: g.revision.id })).toBe(0);
-      expect(await em.count(QuoteEvent, { quote: g.quote.id, type: 'sent' })).toBe(0);
+      expect((await em.findOneOrFail(QuoteRevision, g.revision.id)).state).toBe('sent');
+      expect(await em.count(QuoteEvent, { quote: g.quote.id, type: 'sent' })).toBe(1);
+      const link = await em.findOneOrFail(PortalToken, { revision: g.revision.id });
+      const queued = await em.findOneOrFail(OutboxMessage, { reference: link.id });
+      expect(queued).toMatchObject({ status: 'pending', to: g.customer.email });
+      // the event names the link the e-mail carries
+      const sent = await em.findOneOrFail(QuoteEvent, { quote: g.quote.id, type: 'sent' });
+      expect(sent.data).toMatchObject({ linkId: link.id });
     } finally {
       await down.close();
     }

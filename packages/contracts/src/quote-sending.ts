@@ -37,6 +37,19 @@ export const SendPreviewResponse = z.object({
 });
 export type SendPreviewResponse = z.infer<typeof SendPreviewResponse>;
 
+/**
+ * Where the e-mail carrying something stands: `sent` once the mail server took it, `queued`
+ * while it waits for the server (retried with back-off), `failed` after the last attempt.
+ */
+export const MAIL_DELIVERIES = ['sent', 'queued', 'failed'] as const;
+export const MailDelivery = z.enum(MAIL_DELIVERIES);
+export type MailDelivery = z.infer<typeof MailDelivery>;
+export const MAIL_DELIVERY_LABELS: Record<MailDelivery, string> = {
+  sent: 'E-mail sent',
+  queued: 'E-mail queued',
+  failed: 'E-mail failed',
+};
+
 export const PortalLinkSummary = z.object({
   id: z.string(),
   sentTo: z.string(),
@@ -45,6 +58,10 @@ export const PortalLinkSummary = z.object({
   revokedAt: z.string().nullable(),
   /** Not revoked and not expired. */
   active: z.boolean(),
+  /** The e-mail that carried the link. */
+  delivery: MailDelivery,
+  /** Hand-overs to the mail server tried so far (0 before the first). */
+  deliveryAttempts: z.number().int().nonnegative(),
 });
 export type PortalLinkSummary = z.infer<typeof PortalLinkSummary>;
 
@@ -58,7 +75,7 @@ export const RevisionSendingState = z.object({
 });
 export type RevisionSendingState = z.infer<typeof RevisionSendingState>;
 
-export const SendQuoteResponse = z.object({ sending: RevisionSendingState, sentTo: z.string() });
+export const SendQuoteResponse = z.object({ sending: RevisionSendingState, sentTo: z.string(), delivery: MailDelivery });
 export type SendQuoteResponse = z.infer<typeof SendQuoteResponse>;
 
 export const RevokeLinksResponse = z.object({ sending: RevisionSendingState, revoked: z.number().int() });

@@ -15,17 +15,24 @@ export interface MailAttachment {
   contentType: string;
 }
 
-/** Sends e-mail. The api's only way out to a mail server. */
-export interface Mailer {
+/**
+ * Hands one e-mail to the mail server. Only the outbox (outbox.ts) uses it: modules queue
+ * their mail there, so a mail server that is down delays mail but loses none.
+ */
+export interface MailTransport {
   send(mail: OutgoingMail): Promise<void>;
   close(): void;
 }
 
-export function createSmtpMailer(mail: AppConfig['mail']): Mailer {
+export function createSmtpMailer(mail: AppConfig['mail']): MailTransport {
   const transport = nodemailer.createTransport({
     host: mail.host,
     port: mail.port,
     secure: mail.secure,
+    // a hand-over that hangs must end well inside the outbox's lease, so it can be retried
+    connectionTimeout: 15_000,
+    greetingTimeout: 15_000,
+    socketTimeout: 60_000,
     ignoreTLS: !mail.secure && (mail.host === '127.0.0.1' || mail.host === 'localhost'),
     ...(mail.user ? { auth: { user: mail.user, pass: mail.pass ?? '' } } : {}),
   });

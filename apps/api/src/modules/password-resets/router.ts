@@ -27,10 +27,12 @@ export function passwordResetRouter(deps: ModuleDeps, registry: RegisteredRoute[
         const user = await em.findOne(User, { email: input.body.email, active: true }, { populate: ['organization'] });
         if (!user || !user.passwordHash) return;
         const token = issueToken(em, user, 'password-reset', RESET_TTL_MS);
-        await em.flush();
-        mailer
-          .send({ to: user.email, ...passwordResetMail({ name: user.name, link: `${config.publicUrl}/reset-password?token=${token}` }) })
-          .catch((err: unknown) => logger.error('Password reset e-mail failed', err));
+        // the token and its e-mail are written in one flush; the outbox delivers it
+        await mailer.send(
+          { to: user.email, ...passwordResetMail({ name: user.name, link: `${config.publicUrl}/reset-password?token=${token}` }) },
+          { em, kind: 'password-reset', organizationId: user.organization.id },
+        );
+        await em.flush().catch((err: unknown) => logger.error('Password reset e-mail could not be queued', err));
       },
     }),
     route({

@@ -67,7 +67,11 @@ function ref(access: PortalAccess, customerName: string) {
   return { reference: formatQuoteNumber(access.quote.number), customerName, firmName: access.organization.name };
 }
 
-/** Mail that tells someone something already recorded: a refusal by the mail server is logged, not fatal. */
+/**
+ * Mail that tells someone something already recorded: queued in the outbox right after that
+ * change was flushed (the outbox retries while the mail server is down); a failure to queue is
+ * logged, not fatal.
+ */
 async function notify(deps: ModuleDeps, mail: { to: string; subject: string; text: string }): Promise<void> {
   if (!mail.to) return;
   try {
@@ -287,8 +291,8 @@ const DAY_MS = 24 * 3600_000;
  * The firm's reply: a staff message and a `reply` event, e-mailed to the homeowner with a fresh
  * link to the revision they are dealing with (the approved one, else the newest sent one). Only
  * token hashes are stored, so each reply carries a new link; it expires with the quote (an
- * approved quote's link stays usable for 90 days, for the deposit). Written in one transaction
- * that commits only once the mail server took the e-mail.
+ * approved quote's link stays usable for 90 days, for the deposit). The message, the link, the
+ * event and the outbox e-mail are written in one transaction; the outbox delivers it.
  */
 export async function replyToHomeowner(
   deps: ModuleDeps,
@@ -336,25 +340,9 @@ export async function replyToHomeowner(
     link: `${deps.config.publicUrl}${portalQuotePath(raw)}`,
   });
 
-  await em.begin();
-  try {
-    await em.flush();
-    try {
-      await deps.mailer.send({ to, ...mail });
-    } catch (err) {
-      deps.logger.error(`Reply e-mail to ${to} was not accepted by the mail server`, err);
-      throw new HttpError(
-        502,
-        'mail-not-sent',
-        'E-mail not sent',
-        'The mail server did not accept the reply. Nothing was sent; try again in a moment.',
-      );
-    }
-    await em.commit();
-  } catch (err) {
-    await em.rollback();
-    throw err;
-  }
+  // the e-mail joins the same flush (one transaction): it goes out once the reply is recorded
+  await deps.mailer.send({ to, ...mail }, { em, kind: 'reply', organizationId: quote.organization.id });
+  await em.flush();
   return { message, sentTo: to };
 }
 

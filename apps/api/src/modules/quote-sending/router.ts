@@ -3,7 +3,7 @@ import { User } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { loadFirmRevision } from '../quote-access/revision-by-id';
-import { composeQuoteMail, resendRevision, revokeRevisionLinks, sendBlockers, sendingState, sendRevision } from './service';
+import { composeQuoteMail, resendRevision, revokeRevisionLinks, sendAnswer, sendBlockers, sendingState, sendRevision } from './service';
 
 const quoteStaff = allowRoles('owner', 'estimator');
 const LINK_PLACEHOLDER = '(your personal link appears here)';
@@ -48,8 +48,8 @@ export function quoteSendingRouter(deps: ModuleDeps, registry: RegisteredRoute[]
       handler: async ({ res, em, input, auth }) => {
         const { quote, revision } = await loadFirmRevision(em, auth.organizationId, input.params.id, input.params.revisionId);
         const actor = await em.findOneOrFail(User, auth.user.id);
-        const sentTo = await sendRevision({ deps, em, quote, revision, actor }, input.body);
-        res.status(201).json({ sentTo, sending: await sendingState(em, quote, revision) });
+        const sent = await sendRevision({ deps, em, quote, revision, actor }, input.body);
+        res.status(201).json(await sendAnswer(deps, em, quote, revision, sent));
       },
     }),
     route({
@@ -61,8 +61,8 @@ export function quoteSendingRouter(deps: ModuleDeps, registry: RegisteredRoute[]
       handler: async ({ res, em, input, auth }) => {
         const { quote, revision } = await loadFirmRevision(em, auth.organizationId, input.params.id, input.params.revisionId);
         const actor = await em.findOneOrFail(User, auth.user.id);
-        const sentTo = await resendRevision({ deps, em, quote, revision, actor }, input.body);
-        res.status(201).json({ sentTo, sending: await sendingState(em, quote, revision) });
+        const sent = await resendRevision({ deps, em, quote, revision, actor }, input.body);
+        res.status(201).json(await sendAnswer(deps, em, quote, revision, sent));
       },
     }),
     route({

@@ -5,12 +5,15 @@ import {
   portalQuotePath,
   type RevisionSendingState,
   type SendQuoteRequest,
+  type SendQuoteResponse,
 } from '@gloaming/contracts';
 import {
   Customer,
   Organization,
+  OutboxMessage,
   PortalToken,
   type User,
+  newId,
   newSecretToken,
   type EntityManager,
   type Quote,
@@ -20,6 +23,7 @@ import { computeQuoteTotals, evaluateCircuit, formatMoney, isEngineInputError } 
 import type { ModuleDeps } from '../../app-deps';
 import { hashToken } from '../../auth/tokens';
 import { conflict, HttpError } from '../../http/problem';
+import { deliveryOf } from '../../mail/outbox';
 import { circuitDesign, circuitSettings, firmProducts, listCircuits, productRefs } from '../circuits/service';
 import { buildQuotePdfModel, priceForCustomer, validUntilFor } from '../quote-pdf/build-pdf-model';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
@@ -120,6 +124,15 @@ export async function sendingState(
     { revision: revision.id, organization: quote.organization.id },
     { orderBy: { createdAt: 'desc' } },
   );
+  const mails = tokens.length
+    ? await em.fork().find(
+        OutboxMessage,
+        { reference: { $in: tokens.map((t) => t.id) }, organization: quote.organization.id },
+        { fields: ['reference', 'status', 'attempts'] },
+      )
+    : [];
+  // (a fork of its own: the worker updates these rows from other entity managers)
+  const mailOf = new Map(mails.map((m) => [m.reference, m]));
   return {
     revisionId: revision.id,
     state: revision.state,
@@ -133,6 +146,9 @@ export async function sendingState(
       expiresAt: t.expiresAt.toISOString(),
       revokedAt: t.revokedAt?.toISOString() ?? null,
       active: !t.revokedAt && t.expiresAt > now,
+      // links from before the outbox went out while the request waited: they were sent
+      delivery: deliveryOf(mailOf.get(t.id)?.status ?? 'sent'),
+      deliveryAttempts: mailOf.get(t.id)?.attempts ?? 1,
     })),
   };
 }
@@ -183,10 +199,17 @@ interface SendContext {
   actor: User;
 }
 
+/** What a send recorded: the address, and the outbox message carrying the link. */
+export interface SendOutcome {
+  to: string;
+  mailId: string;
+}
+
 /**
- * E-mail a portal link and the PDF. The new token, the freeze (for a first send) and the
- * event are written in one transaction that commits only once the mail server took the
- * message, so a failed send leaves nothing half done.
+ * E-mail a portal link and the PDF. The new token, the freeze (for a first send), the event
+ * and the outbox message are written in one transaction; the outbox hands the message to the
+ * mail server after the commit and retries while the server is down, so nothing is half done
+ * and nothing is lost.
  */
 async function deliver(
   ctx: SendContext,
@@ -194,7 +217,7 @@ async function deliver(
   kind: 'sent' | 'resent',
   now: Date,
   validUntil: Date,
-): Promise<string> {
+): Promise<SendOutcome> {
   const { deps, em, quote, revision, actor } = ctx;
   const token = newSecretToken();
   const link = `${deps.config.publicUrl}${portalQuotePath(token)}`;
@@ -213,6 +236,7 @@ async function deliver(
   // Token, freeze and event are only persisted here; the flush below writes them inside the
   // transaction, so a refused e-mail leaves nothing behind.
   const portalToken = em.create(PortalToken, {
+    id: newId(), // known now: the event and the outbox message refer to it
     organization: quote.organization,
     revision,
     tokenHash: hashToken(token),
@@ -232,36 +256,42 @@ async function deliver(
   const model = await buildQuotePdfModel(em, deps.storage, quote, revision, { issuedOn: revision.sentAt ?? now, validUntil });
   const pdf = await sharedPdfRenderer().render(model);
 
-  await em.begin();
-  try {
-    await em.flush();
-    try {
-      await deps.mailer.send({
-        to,
-        subject: mail.subject,
-        text: mail.text,
-        attachments: [{ filename: mail.attachmentName, content: pdf, contentType: 'application/pdf' }],
-      });
-    } catch (err) {
-      deps.logger.error(`Quote e-mail to ${to} was not accepted by the mail server`, err);
-      throw new HttpError(
-        502,
-        'mail-not-sent',
-        'E-mail not sent',
-        'The mail server did not accept the message. Nothing was sent and the quote is unchanged; try again in a moment.',
-      );
-    }
-    await em.commit();
-  } catch (err) {
-    await em.rollback();
-    throw err;
-  }
-  return to;
+  // The outbox row joins the same flush (one transaction) as the token, the freeze and the
+  // event: the mail exists exactly when the send does, and goes out once that commits.
+  const queued = await deps.mailer.send(
+    {
+      to,
+      subject: mail.subject,
+      text: mail.text,
+      attachments: [{ filename: mail.attachmentName, content: pdf, contentType: 'application/pdf' }],
+    },
+    { em, kind: kind === 'sent' ? 'quote' : 'quote-again', reference: portalToken.id, organizationId: quote.organization.id },
+  );
+  await em.flush();
+  return { to, mailId: queued.id };
+}
+
+/** How long a send request waits for the mail server before answering "queued". */
+export const SEND_ANSWER_WAIT_MS = 3_000;
+
+/**
+ * The answer to a send: "sent" when the mail server took the message within a few seconds,
+ * "queued" when it is down or slow (the outbox keeps retrying), "failed" never on a first try.
+ */
+export async function sendAnswer(
+  deps: ModuleDeps,
+  em: EntityManager,
+  quote: Quote,
+  revision: QuoteRevision,
+  sent: SendOutcome,
+): Promise<SendQuoteResponse> {
+  const delivery = await deps.mailer.outcome(sent.mailId, SEND_ANSWER_WAIT_MS);
+  return { sentTo: sent.to, delivery, sending: await sendingState(em, quote, revision) };
 }
 
 const DAY_MS = 24 * 3600_000;
 
-export async function sendRevision(ctx: SendContext, body: SendQuoteRequest): Promise<string> {
+export async function sendRevision(ctx: SendContext, body: SendQuoteRequest): Promise<SendOutcome> {
   const { em, quote, revision } = ctx;
   if (revision.state === 'sent')
     throw conflict(`Revision ${revision.number} has already been sent. Use "send again" for a new link.`);
@@ -275,7 +305,7 @@ export async function sendRevision(ctx: SendContext, body: SendQuoteRequest): Pr
 }
 
 /** A new link for an already sent revision; earlier links stay valid unless revoked. */
-export async function resendRevision(ctx: SendContext, body: SendQuoteRequest): Promise<string> {
+export async function resendRevision(ctx: SendContext, body: SendQuoteRequest): Promise<SendOutcome> {
   const { quote, revision } = ctx;
   if (revision.state !== 'sent')
     throw conflict(

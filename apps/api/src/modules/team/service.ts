@@ -3,7 +3,7 @@ import { Organization, User, type EntityManager } from '@gloaming/db';
 import type { Auth } from '../../auth/lucia';
 import { issueToken } from '../../auth/tokens';
 import { conflict, notFound } from '../../http/problem';
-import type { Mailer } from '../../mail/mailer';
+import type { Outbox } from '../../mail/outbox';
 import { inviteMail } from '../../mail/templates';
 import { recordFirmEvent } from '../activity/service';
 
@@ -15,19 +15,23 @@ export async function findFirmUser(em: EntityManager, organizationId: string, id
   return user;
 }
 
-async function sendInvite(em: EntityManager, mailer: Mailer, publicUrl: string, user: User, inviterName: string) {
+async function sendInvite(em: EntityManager, mailer: Outbox, publicUrl: string, user: User, inviterName: string) {
   const token = issueToken(em, user, 'invite', INVITE_TTL_MS);
-  await em.flush();
   const link = `${publicUrl}/accept-invite?token=${token}`;
-  await mailer.send({
-    to: user.email,
-    ...inviteMail({ name: user.name, firmName: user.organization.name, inviterName, link, role: ROLE_LABELS[user.role].toLowerCase() }),
-  });
+  // the person, the token and the invitation e-mail are written in one flush
+  await mailer.send(
+    {
+      to: user.email,
+      ...inviteMail({ name: user.name, firmName: user.organization.name, inviterName, link, role: ROLE_LABELS[user.role].toLowerCase() }),
+    },
+    { em, kind: 'invite', organizationId: user.organization.id },
+  );
+  await em.flush();
 }
 
 export async function inviteUser(
   em: EntityManager,
-  mailer: Mailer,
+  mailer: Outbox,
   publicUrl: string,
   organizationId: string,
   inviterId: string,
@@ -42,7 +46,7 @@ export async function inviteUser(
   return user;
 }
 
-export async function resendInvite(em: EntityManager, mailer: Mailer, publicUrl: string, user: User, inviterName: string) {
+export async function resendInvite(em: EntityManager, mailer: Outbox, publicUrl: string, user: User, inviterName: string) {
   if (user.passwordHash) throw conflict(`${user.name} has already accepted the invitation.`);
   if (!user.active) throw conflict(`${user.name} is deactivated; reactivate them first.`);
   await sendInvite(em, mailer, publicUrl, user, inviterName);
