@@ -52,6 +52,7 @@ describe('send blockers', () => {
     await userEvent.setup().click(screen.getByRole('button', { name: 'Send…' }));
     const list = await screen.findByTestId('send-blockers');
     expect(list.textContent).toContain('2 circuit errors not accepted');
+    expect(within(list).getByRole('note').textContent).toContain('licensed electrician');
     const group = within(list).getByRole('region', { name: 'Errors in circuit Front path: Path string' });
     const link = within(group).getByRole('link', { name: 'Open circuit “Front path: Path string” →' });
     expect(link.getAttribute('href')).toBe(`/quotes/${QUOTE}/circuits?circuit=${CIRCUIT}`);

@@ -55,6 +55,9 @@ export function SendBlockers({ quoteId, blockers }: { quoteId: string; blockers:
             {circuitErrors} circuit error{circuitErrors === 1 ? '' : 's'} not accepted. Fix each in the circuit designer, or
             accept it there with a reason (kept in the quote’s history).
           </p>
+          <p className="text-ink-muted" role="note">
+            Circuit checks are a design aid: mains work is done and certified by a licensed electrician under local wiring rules.
+          </p>
           {circuits.map((c) => (
             <section key={c.id} aria-label={`Errors in circuit ${c.title}`} className="flex flex-col gap-1">
               <Link
