@@ -31,7 +31,7 @@ describe('the activity log', () => {
     expect(mine.entries.every((e) => e.actor?.id === t.firmA.users.estimator.id)).toBe(true);
     expect(mine.entries.some((e) => e.quote?.id === quoteId && e.type === 'created')).toBe(true);
     const owners = await log(`?actorId=${t.firmA.users.owner.id}`);
-    expect(owners.entries.map((e) => e.type)).toContain('settings-changed');
+    expect(owners.entries.find((e) => e.type === 'settings-changed')?.summary).toBe('Changed the firm settings: terms');
     expect(owners.entries.some((e) => e.quote?.id === quoteId)).toBe(false);
   });
 

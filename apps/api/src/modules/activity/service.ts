@@ -33,12 +33,32 @@ export function recordFirmEvent(
 
 const person = (u: { id: string; name: string } | null | undefined) => (u ? { id: u.id, name: u.name } : null);
 
+/** The settings as the owner knows them, for "Changed the firm settings: default markup, terms". */
+const SETTING_WORDS: Record<keyof FirmSettings, string> = {
+  name: 'firm name',
+  addressLines: 'address',
+  vatNumber: 'VAT number',
+  currency: 'currency',
+  locale: 'number and date format',
+  vatRateBp: 'standard VAT rate',
+  vatRatesBp: 'VAT rates',
+  vatRounding: 'VAT rounding',
+  depositPercentBp: 'default deposit',
+  markupPercentBp: 'default markup',
+  labourRateMinorPerHour: 'labour rate',
+  design: 'circuit design settings',
+  quoteValidityDays: 'quote validity',
+  termsText: 'terms',
+  emailSenderName: 'e-mail sender name',
+};
+const settingWord = (key: string) => (key in SETTING_WORDS ? SETTING_WORDS[key as keyof FirmSettings] : key);
+
 function firmSummary(e: FirmEvent): string {
   const who = e.subject?.name ?? 'someone';
   const d = e.data;
   switch (e.type as FirmEventType) {
     case 'settings-changed': {
-      const fields = Array.isArray(d.fields) ? (d.fields as unknown[]).map(String) : [];
+      const fields = Array.isArray(d.fields) ? (d.fields as unknown[]).map((f) => settingWord(String(f))) : [];
       return fields.length ? `Changed the firm settings: ${fields.join(', ')}` : 'Saved the firm settings';
     }
     case 'logo-changed':

@@ -99,7 +99,7 @@ export function FirmSettingsForm({ initial, onReload }: { initial: FirmSettingsR
     },
     () => {
       setSaved(false);
-      setMessage({ title: 'Some settings need a look', detail: 'Each one is marked below with what to change.' });
+      setMessage({ title: 'Some settings need a look', detail: 'Each one is marked beside the field with what to change.' });
     },
   );
 
