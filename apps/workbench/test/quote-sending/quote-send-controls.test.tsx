@@ -35,6 +35,7 @@ describe('QuoteSendControls', () => {
       if (r.url.endsWith('/send'))
         return json(201, {
           sentTo: 'ottilie@brackenbury.example',
+          delivery: 'sent',
           sending: { ...draftState, state: 'sent', sentAt: '2026-12-01T10:00:00.000Z' },
         });
       return json(200, { sending: draftState });
@@ -121,6 +122,8 @@ describe('QuoteSendControls', () => {
           expiresAt: '2026-12-31T10:00:00.000Z',
           revokedAt: null,
           active: true,
+          delivery: 'sent',
+          deliveryAttempts: 1,
         },
       ],
     };
@@ -139,5 +142,47 @@ describe('QuoteSendControls', () => {
     await waitFor(() => expect((screen.getByLabelText('Send to') as HTMLInputElement).value).not.toBe(''));
     await user.click(screen.getByRole('button', { name: 'Send again' }));
     expect((await screen.findByRole('alert')).textContent).toContain('The mail server did not accept the message.');
+  });
+
+  it('says "queued" when the mail server has not taken the e-mail, and "failed" once the outbox gave up', async () => {
+    const link = {
+      id: 'l1',
+      sentTo: 'ottilie@brackenbury.example',
+      createdAt: '2026-12-01T10:00:00.000Z',
+      expiresAt: '2026-12-31T10:00:00.000Z',
+      revokedAt: null,
+      active: true,
+    };
+    const queuedState: RevisionSendingState = {
+      ...draftState,
+      state: 'sent',
+      sentAt: '2026-12-01T10:00:00.000Z',
+      links: [{ ...link, delivery: 'queued', deliveryAttempts: 1 }],
+    };
+    const failedState: RevisionSendingState = { ...queuedState, links: [{ ...link, delivery: 'failed', deliveryAttempts: 8 }] };
+    let stateNow: RevisionSendingState = draftState;
+    stubFetch((r) => {
+      if (r.url.includes('/send-preview')) return json(200, preview());
+      if (r.url.endsWith('/send')) {
+        stateNow = queuedState;
+        return json(201, { sentTo: 'ottilie@brackenbury.example', delivery: 'queued', sending: queuedState });
+      }
+      return json(200, { sending: stateNow });
+    });
+    const view = renderWithApp(<QuoteSendControls quoteId={QUOTE} revision={{ id: REV, number: 1, state: 'draft' }} />);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: 'Send…' }));
+    await waitFor(() => expect((screen.getByLabelText('Send to') as HTMLInputElement).value).not.toBe(''));
+    await user.click(screen.getByRole('button', { name: 'Send quote' }));
+    const status = await screen.findByRole('status');
+    await waitFor(() => expect(status.textContent).toContain('queued'));
+    expect(status.textContent).not.toMatch(/^Sent to/);
+
+    view.unmount();
+
+    // the summary of a sent revision whose e-mail was given up says so
+    stateNow = failedState;
+    renderWithApp(<QuoteSendControls quoteId={QUOTE} revision={{ id: REV, number: 1, state: 'sent' }} />);
+    expect(await screen.findByText(/e-mail to ottilie@brackenbury\.example failed after 8 tries/)).toBeTruthy();
   });
 });

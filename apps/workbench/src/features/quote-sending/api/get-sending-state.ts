@@ -13,10 +13,14 @@ export async function fetchSendingState(
   return sending;
 }
 
+/** While an e-mail waits for the mail server, ask again this often, so "queued" turns to "sent". */
+export const QUEUED_POLL_MS = 5_000;
+
 export const sendingStateQueryOptions = (quoteId: string, revisionId: string) =>
   queryOptions({
     queryKey: sendingKeys.state(quoteId, revisionId),
     queryFn: ({ signal }) => fetchSendingState(quoteId, revisionId, signal),
+    refetchInterval: (query) => (query.state.data?.links.some((l) => l.delivery === 'queued') ? QUEUED_POLL_MS : false),
   });
 
 export function useSendingState(quoteId: string, revisionId: string) {

@@ -1,4 +1,4 @@
-import type { RevisionSendingState } from '@gloaming/contracts';
+import type { RevisionSendingState, SendQuoteResponse } from '@gloaming/contracts';
 import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-error';
@@ -24,7 +24,24 @@ function sentSummary(s: RevisionSendingState): string {
   const active = s.links.filter((l) => l.active).length;
   const sent = s.sentAt ? `Sent ${dateText(s.sentAt)}` : 'Sent';
   const valid = s.validUntil ? `, valid until ${dateText(s.validUntil)}` : '';
-  return `${sent}${valid} · ${active === 0 ? 'no working link' : active === 1 ? '1 working link' : `${active} working links`}`;
+  return `${sent}${valid} · ${active === 0 ? 'no working link' : active === 1 ? '1 working link' : `${active} working links`}${deliveryNote(s)}`;
+}
+
+/** How the newest link's e-mail stands, when it has not simply gone: said plainly, never hidden. */
+function deliveryNote(s: RevisionSendingState): string {
+  const newest = s.links[0];
+  if (!newest || newest.delivery === 'sent') return '';
+  if (newest.delivery === 'queued')
+    return ` · e-mail to ${newest.sentTo} queued: the mail server has not taken it yet (tried ${newest.deliveryAttempts}×, retrying)`;
+  return ` · e-mail to ${newest.sentTo} failed after ${newest.deliveryAttempts} tries: check the address or send again`;
+}
+
+/** The line after a send: "sent" only when the mail server took the message. */
+function sendResult(kind: SendKind, r: SendQuoteResponse): string {
+  const verb = kind === 'send' ? 'Sent' : 'Sent again';
+  if (r.delivery === 'sent') return `${verb} to ${r.sentTo}.`;
+  if (r.delivery === 'queued') return `${verb}: e-mail to ${r.sentTo} queued; the mail server has not taken it yet and it will keep trying.`;
+  return `${verb}, but the e-mail to ${r.sentTo} failed.`;
 }
 
 /**
@@ -92,7 +109,7 @@ export function QuoteSendControls({
           </Button>
         </>
       ) : null}
-      <span role="status" aria-live="polite" className="max-w-48 truncate text-micro text-leaf-700" title={status}>
+      <span role="status" aria-live="polite" className="max-w-64 text-micro whitespace-normal text-leaf-700">
         {status}
       </span>
       {revoke.isError ? (
@@ -177,7 +194,7 @@ function SendDialog({
     send.mutate(
       { kind, request },
       {
-        onSuccess: (r) => onClose(`${kind === 'send' ? 'Sent' : 'Sent again'} to ${r.sentTo}.`),
+        onSuccess: (r) => onClose(sendResult(kind, r)),
         // refused for something that changed since the preview (a circuit saved elsewhere): show the list again
         onError: () => void preview.refetch(),
       },
