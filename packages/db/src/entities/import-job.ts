@@ -26,8 +26,14 @@ export const ImportJob = defineEntity({
     createdCount: p.integer().default(0),
     updatedCount: p.integer().default(0),
     rejectedCount: p.integer().default(0),
-    /** Rejected rows with reasons, for the CSV download. */
-    rejections: p.json<{ row: number; reason: string; values: Record<string, string> }[]>().onCreate(() => []),
+    /**
+     * Rejected rows with reasons, for the CSV download. Plain `json`, not PostgreSQL's jsonb:
+     * each row's `values` keeps the file's column order, which jsonb would re-sort.
+     */
+    rejections: p
+      .json<{ row: number; reason: string; values: Record<string, string> }[]>()
+      .columnType('json')
+      .onCreate(() => []),
     error: p.text().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     finishedAt: p.datetime().nullable(),

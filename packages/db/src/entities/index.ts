@@ -21,6 +21,7 @@ export { FirmEvent } from './firm-event';
 export { CircuitAsWired } from './circuit-as-wired';
 export { CommissioningRecord } from './commissioning-record';
 export { OutboxMessage, OUTBOX_STATES, type OutboxState, type OutboxAttachment } from './outbox-message';
+export { RateLimitCounter } from './rate-limit-counter';
 
 import { AuthToken } from './auth-token';
 import { Circuit } from './circuit';
@@ -42,6 +43,7 @@ import { QuoteApproval } from './quote-approval';
 import { QuoteEvent } from './quote-event';
 import { QuoteMessage } from './quote-message';
 import { QuoteRevision } from './quote-revision';
+import { RateLimitCounter } from './rate-limit-counter';
 import { Session } from './session';
 import { Site } from './site';
 import { User } from './user';
@@ -71,4 +73,5 @@ export const entities = [
   CircuitAsWired,
   CommissioningRecord,
   OutboxMessage,
+  RateLimitCounter,
 ];
