@@ -14,7 +14,7 @@ const restrict = (paths, patterns) => ({
 });
 
 export default tseslint.config(
-  { ignores: ['**/dist/**', '**/node_modules/**', '**/.turbo/**', 'data/**', 'coverage/**', 'tests/artifacts/**', 'bench/results/**', 'packages/db/src/migrations/Migration*.ts'] },
+  { ignores: ['**/dist/**', '**/node_modules/**', '**/.turbo/**', 'data/**', 'coverage/**', 'tests/artifacts/**', 'bench/results/**', 'packages/db/src/migrations/Migration*.ts', 'packages/db/src/migrations-postgres/Migration*.ts'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -1,13 +1,24 @@
-import { MikroORM } from '@mikro-orm/sqlite';
-import { ormConfig, type DatabaseOptions } from './config';
+import { MikroORM } from '@mikro-orm/core';
+import type { AbstractSqlDriver, SqlEntityManager } from '@mikro-orm/knex';
+import { ormConfig, type DatabaseDialect, type DatabaseOptions } from './config';
 import { Organization } from './entities';
 import { DemoSeeder } from './seeders/demo-seeder';
+import { sqlDialect } from './sql-query';
 
-export type Database = MikroORM;
+export type Database = MikroORM<AbstractSqlDriver, SqlEntityManager>;
 
-/** Open the database (creating the file and its folder if missing). Does not migrate. */
+/**
+ * Open the database: the SQLite file (creating it and its folder if missing) or, given a
+ * postgres:// URL, the PostgreSQL database (creating the database if the server has none of
+ * that name). Does not migrate.
+ */
 export async function openDatabase(options: DatabaseOptions): Promise<Database> {
   return MikroORM.init(ormConfig(options));
+}
+
+/** Which database an open ORM talks to. */
+export function databaseDialect(orm: Database): DatabaseDialect {
+  return sqlDialect(orm.em);
 }
 
 /** Apply every pending migration. Returns the names applied. */

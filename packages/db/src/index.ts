@@ -1,12 +1,14 @@
 export * from './entities';
-export { ormConfig, type DatabaseOptions } from './config';
-export { openDatabase, migrate, migrationsOutOfDate, seedDemoIfEmpty, databaseStatus, type Database } from './database';
+export { ormConfig, dialectOf, type DatabaseOptions, type DatabaseDialect } from './config';
+export { openDatabase, databaseDialect, migrate, migrationsOutOfDate, seedDemoIfEmpty, databaseStatus, type Database } from './database';
+export { isDatabaseBusy } from './database-busy';
+export { createScratchDatabase, withDatabaseName, withoutPassword, type ScratchDatabase } from './postgres-scratch';
 export { hashPassword, verifyPassword, MIN_PASSWORD_LENGTH } from './passwords';
 export { newId, newSecretToken } from './ids';
 export { backupDatabase, restoreDatabase, integrityCheck } from './backup';
 export { canonicalJson, contentHash } from './content-hash';
 export { designSettingsOf, revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
-export { sqlEm, raw } from './sql-query';
+export { sqlEm, raw, sqlDialect, jsonValue, jsonNumber, dateParam, dateFromSql, likeIgnoringCase } from './sql-query';
 export { DEMO_ACCOUNTS, DEMO_FIRM, type DemoAccount } from './seeders/demo-accounts';
 export { DemoSeeder } from './seeders/demo-seeder';
 export type { EntityManager } from '@mikro-orm/core';

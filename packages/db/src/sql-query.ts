@@ -1,5 +1,7 @@
 import type { EntityManager } from '@mikro-orm/core';
-import { SqlEntityManager } from '@mikro-orm/sqlite';
+import { SqlEntityManager } from '@mikro-orm/knex';
+import { PostgreSqlPlatform } from '@mikro-orm/postgresql';
+import type { DatabaseDialect } from './config';
 
 /**
  * The SQL side of an entity manager, for queries worth writing with the query builder
@@ -10,4 +12,71 @@ export function sqlEm(em: EntityManager): SqlEntityManager {
   return em;
 }
 
-export { raw } from '@mikro-orm/sqlite';
+export { raw } from '@mikro-orm/knex';
+
+/**
+ * The few places where SQLite and PostgreSQL spell things differently. Everything else
+ * (entities, the query builder, plain SQL aggregates) is the same on both.
+ */
+export function sqlDialect(em: EntityManager): DatabaseDialect {
+  return em.getPlatform() instanceof PostgreSqlPlatform ? 'postgresql' : 'sqlite';
+}
+
+const JSON_KEY = /^[A-Za-z_][A-Za-z0-9_]*$/;
+const SQL_REF = /^[A-Za-z_][A-Za-z0-9_]*(\.[A-Za-z_][A-Za-z0-9_]*)?$/;
+
+function jsonPath(column: string, key: string): void {
+  if (!SQL_REF.test(column) || !JSON_KEY.test(key)) throw new Error(`Not a plain column and key: ${column}, ${key}`);
+}
+
+/**
+ * SQL for a top-level key of a json column, for raw select fragments: SQLite's
+ * json_extract (which keeps the json type: numbers come back as numbers), PostgreSQL's
+ * jsonb `->>` (text). Use `jsonNumber` where the value is summed or compared as a number.
+ */
+export function jsonValue(em: EntityManager, column: string, key: string): string {
+  jsonPath(column, key);
+  return sqlDialect(em) === 'postgresql' ? `(${column}->>'${key}')` : `json_extract(${column}, '$.${key}')`;
+}
+
+/** A numeric top-level key of a json column, as a number on both databases. */
+export function jsonNumber(em: EntityManager, column: string, key: string): string {
+  jsonPath(column, key);
+  return sqlDialect(em) === 'postgresql' ? `(${column}->>'${key}')::numeric` : `json_extract(${column}, '$.${key}')`;
+}
+
+/**
+ * A datetime as a bound parameter of raw SQL compared with a datetime column: SQLite stores
+ * MikroORM datetimes as epoch milliseconds, PostgreSQL as timestamptz.
+ */
+export function dateParam(em: EntityManager, at: Date): number | Date {
+  return sqlDialect(em) === 'postgresql' ? at : at.getTime();
+}
+
+/**
+ * A case-insensitive LIKE condition: SQLite's LIKE already ignores the case of ASCII letters,
+ * PostgreSQL's needs ILIKE.
+ */
+export function likeIgnoringCase(em: EntityManager, pattern: string): { $like: string } | { $ilike: string } {
+  return sqlDialect(em) === 'postgresql' ? { $ilike: pattern } : { $like: pattern };
+}
+
+/**
+ * A datetime read back by raw SQL, as a Date: SQLite hands back MikroORM datetimes as stored
+ * (epoch milliseconds, or ISO text), PostgreSQL's driver as timestamptz text
+ * ("2026-03-02 09:00:00.123+00"). Null for null or unreadable values.
+ */
+export function dateFromSql(v: unknown): Date | null {
+  if (v === null || v === undefined) return null;
+  if (v instanceof Date) return Number.isNaN(v.getTime()) ? null : v;
+  let d: Date | null = null;
+  if (typeof v === 'number') d = new Date(v);
+  else if (typeof v === 'string') {
+    if (/^\d+$/.test(v)) d = new Date(Number(v));
+    else {
+      const iso = v.replace(' ', 'T').replace(/([+-]\d\d)(\d\d)?$/, (_, h: string, m?: string) => `${h}:${m ?? '00'}`);
+      d = new Date(/(Z|[+-]\d\d:\d\d)$/.test(iso) ? iso : `${iso}Z`);
+    }
+  }
+  return d && !Number.isNaN(d.getTime()) ? d : null;
+}
