@@ -8,7 +8,7 @@ import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import type { Server } from 'node:http';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { DEMO_ACCOUNTS, DEMO_FIRM, migrate, openDatabase, seedDemoIfEmpty } from '@gloaming/db';
+import { DEMO_ACCOUNTS, DEMO_FIRM, migrate, openDatabase, seedDemoIfEmpty, withoutPassword } from '@gloaming/db';
 import type { PaymentFake } from '@gloaming/fakes';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
@@ -40,8 +40,8 @@ async function main(): Promise<void> {
   }
 
   mkdirSync(config.dataDir, { recursive: true });
-  const isNewDatabase = !existsSync(config.databaseFile);
-  const orm = await openDatabase({ file: config.databaseFile });
+  const isNewDatabase = !config.databaseUrl && !existsSync(config.databaseFile);
+  const orm = await openDatabase(config.databaseUrl ? { url: config.databaseUrl } : { file: config.databaseFile });
   const applied = await migrate(orm);
   const seeded = config.seedDemo ? await seedDemoIfEmpty(orm) : false;
 
@@ -102,7 +102,7 @@ async function main(): Promise<void> {
     `  Health     ${base}/api/health`,
     ...(inboxUrl ? [`  Inbox      ${inboxUrl}  (local SMTP catcher: every e-mail lands here)`] : []),
     ...(paymentFake ? [`  Payments   ${paymentFake.url}/  (local payment-provider fake: test cards, no real money)`] : []),
-    `  Database   ${config.databaseFile}${isNewDatabase ? ' (new)' : ''}${applied.length ? `, ${applied.length} migration(s) applied` : ''}${seeded ? ', demo firm seeded' : ''}`,
+    `  Database   ${config.databaseUrl ? `PostgreSQL ${withoutPassword(config.databaseUrl)}` : config.databaseFile}${isNewDatabase ? ' (new)' : ''}${applied.length ? `, ${applied.length} migration(s) applied` : ''}${seeded ? ', demo firm seeded' : ''}`,
   ];
   if (config.seedDemo) {
     lines.push('', `Demo sign-ins (${DEMO_FIRM.name}, invented):`);

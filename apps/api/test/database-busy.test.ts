@@ -1,12 +1,14 @@
 import sqlite3 from 'sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CustomerListResponse } from '@gloaming/contracts';
+import { openDatabase } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 
 /**
  * When another process holds SQLite's write lock longer than the busy timeout, a write fails
- * with "database is locked". That is not the client's fault and not a crash: the api answers
- * 503 with Retry-After, and nothing half-written is left behind.
+ * with "database is locked" (on PostgreSQL: another transaction holds a lock on the table
+ * longer than the lock timeout). That is not the client's fault and not a crash: the api
+ * answers 503 with Retry-After, and nothing half-written is left behind.
  */
 let t: TestServer;
 beforeAll(async () => {
@@ -16,6 +18,29 @@ afterAll(async () => t.close());
 
 function run(db: sqlite3.Database, sql: string): Promise<void> {
   return new Promise((resolve, reject) => db.exec(sql, (err) => (err ? reject(err) : resolve())));
+}
+
+/** Another connection takes the write lock: SQLite's database lock, or PostgreSQL's lock on the customers table. */
+async function holdWriteLock(): Promise<{ release(): Promise<void> }> {
+  if (t.dialect === 'postgresql') {
+    const other = await openDatabase({ url: t.databaseUrl! });
+    const trx = await other.em.getConnection().getKnex().transaction();
+    await trx.raw('lock table customers in access exclusive mode');
+    return {
+      async release() {
+        await trx.rollback();
+        await other.close(true);
+      },
+    };
+  }
+  const other = new sqlite3.Database(t.databaseFile);
+  await run(other, 'PRAGMA busy_timeout = 0; BEGIN EXCLUSIVE;');
+  return {
+    async release() {
+      await run(other, 'ROLLBACK;');
+      await new Promise<void>((resolve) => other.close(() => resolve()));
+    },
+  };
 }
 
 describe('a database held busy by another writer', () => {
@@ -29,17 +54,15 @@ describe('a database held busy by another writer', () => {
       sites: [{ label: 'Home', addressLines: '3 Weir Lane\nLowbridge', postcode: 'LB4 7WL', accessNotes: '' }],
     };
 
-    const other = new sqlite3.Database(t.databaseFile);
+    const lock = await holdWriteLock();
     try {
-      await run(other, 'PRAGMA busy_timeout = 0; BEGIN EXCLUSIVE;');
       const res = await estimator.post('/api/customers').send(body);
       expect(res.status).toBe(503);
       expect(res.headers['content-type']).toMatch(/application\/problem\+json/);
       expect(res.headers['retry-after']).toBe('1');
       expect(res.body.type).toBe('/problems/busy');
-      await run(other, 'ROLLBACK;');
     } finally {
-      await new Promise<void>((resolve) => other.close(() => resolve()));
+      await lock.release();
     }
 
     const list = CustomerListResponse.parse((await estimator.get('/api/customers?q=Fairweather').expect(200)).body);

@@ -84,6 +84,7 @@ describe('graceful shutdown', () => {
           NODE_ENV: 'development',
           PORT: String(port),
           DATA_DIR: dir,
+          DATABASE_URL: '', // the SQLite file under DATA_DIR, whichever database the suite runs on: the checks below read its WAL
           GLOAMING_FAKES: 'false',
           SMTP_PORT: '9',
         },

@@ -12,8 +12,12 @@ export interface TestServer extends GloamingApp {
   firmA: FirmFixture;
   firmB: FirmFixture;
   orm: Awaited<ReturnType<typeof openTestDatabase>>['orm'];
-  /** Path of the SQLite file. */
+  /** Which database this server runs on: SQLite, or PostgreSQL when DATABASE_URL is set. */
+  dialect: 'sqlite' | 'postgresql';
+  /** Path of the SQLite file (SQLite only). */
   databaseFile: string;
+  /** URL of this server's own PostgreSQL database (PostgreSQL only). */
+  databaseUrl?: string;
   /** A supertest agent signed in as `role` of firm A (or B). Keeps its cookie. */
   signIn(role: Role, firm?: 'A' | 'B'): Promise<ReturnType<typeof request.agent>>;
   close(): Promise<void>;
@@ -21,12 +25,21 @@ export interface TestServer extends GloamingApp {
 
 const quietLogger = { info: () => {}, error: () => {} };
 
-/** createApp on a fresh temp SQLite database, two firms, and a real SMTP catcher. */
+/**
+ * The PostgreSQL server the suite runs against (`npm run test:postgres` sets DATABASE_URL to a
+ * throwaway server), or undefined for the SQLite default.
+ */
+export const testPostgresUrl: string | undefined = process.env.DATABASE_URL || undefined;
+
+/**
+ * createApp on a fresh database of its own (a temp SQLite file, or a new PostgreSQL database
+ * on the DATABASE_URL server, dropped on close), two firms, and a real SMTP catcher.
+ */
 export async function startTestServer(
   env: Record<string, string> = {},
   database: { busyTimeoutMs?: number } = {},
 ): Promise<TestServer> {
-  const db = await openTestDatabase(database);
+  const db = await openTestDatabase({ ...database, ...(testPostgresUrl ? { postgresUrl: testPostgresUrl } : {}) });
   const catcher = await startMailCatcher();
   const config = loadConfig({
     NODE_ENV: 'test',
@@ -35,6 +48,7 @@ export async function startTestServer(
     SMTP_PORT: String(catcher.smtpPort),
     GLOAMING_FAKES: 'false',
     DATA_DIR: db.dir,
+    ...(db.url ? { DATABASE_URL: db.url } : {}),
     ...env,
   });
   const mailer = createSmtpMailer(config.mail);
@@ -48,7 +62,9 @@ export async function startTestServer(
     firmA,
     firmB,
     orm: db.orm,
+    dialect: db.dialect,
     databaseFile: db.file,
+    ...(db.url ? { databaseUrl: db.url } : {}),
     async signIn(role, firm = 'A') {
       const f = firm === 'A' ? firmA : firmB;
       const agent = request.agent(built.app);

@@ -173,14 +173,21 @@ describe('price-list import', () => {
     const up = await upload(estimator, 'Wren Parts', rows.join('\n'));
     // a real database error on row 1200, after earlier chunks were already written in the transaction
     const conn = t.orm.em.fork().getConnection();
-    await conn.execute(`create trigger fail_mid_import before insert on products when new.supplier_code = 'WR-1200' begin select raise(abort, 'forced failure for the rollback test'); end`);
+    if (t.dialect === 'postgresql') {
+      await conn.execute(
+        `create function fail_mid_import() returns trigger language plpgsql as $$ begin if new.supplier_code = 'WR-1200' then raise exception 'forced failure for the rollback test'; end if; return new; end $$`,
+      );
+      await conn.execute('create trigger fail_mid_import before insert on products for each row execute function fail_mid_import()');
+    } else {
+      await conn.execute(`create trigger fail_mid_import before insert on products when new.supplier_code = 'WR-1200' begin select raise(abort, 'forced failure for the rollback test'); end`);
+    }
     try {
       const job = await runToEnd(estimator, up.job.id, mapping);
       expect(job.state).toBe('failed');
       expect(job.error).toMatch(/nothing was changed/);
       expect(job.createdCount).toBe(0);
     } finally {
-      await conn.execute('drop trigger fail_mid_import');
+      await conn.execute(t.dialect === 'postgresql' ? 'drop trigger fail_mid_import on products' : 'drop trigger fail_mid_import');
     }
     const em = t.orm.em.fork();
     expect(await em.count(Product, { supplier: 'Wren Parts' })).toBe(1);

@@ -1,11 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { PROBLEM_CONTENT_TYPE, type FieldError, type Problem } from '@gloaming/contracts';
-import {
-  DeadlockException,
-  LockWaitTimeoutException,
-  OptimisticLockError,
-  UniqueConstraintViolationException,
-} from '@gloaming/db';
+import { isDatabaseBusy, OptimisticLockError, UniqueConstraintViolationException } from '@gloaming/db';
 
 /**
  * Errors the handlers throw on purpose. Each becomes an RFC 9457 problem+json response
@@ -84,9 +79,10 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
       sendProblem(res, problemFrom(conflict('Someone else saved this first. Reload to see their changes.'), instance));
       return;
     }
-    if (err instanceof LockWaitTimeoutException || err instanceof DeadlockException) {
-      // SQLite answered "database is locked" after its busy timeout: the write did not happen,
-      // and trying again in a moment will very likely work.
+    if (isDatabaseBusy(err)) {
+      // SQLite answered "database is locked" after its busy timeout, or PostgreSQL hit its lock
+      // timeout or a deadlock: the write did not happen, and trying again in a moment will very
+      // likely work.
       res.setHeader('Retry-After', '1');
       sendProblem(res, {
         type: '/problems/busy',

@@ -1,5 +1,5 @@
 import type { ColumnMapping, ImportRejection, ProductInputParsed } from '@gloaming/contracts';
-import { ImportJob, Organization, Product, openDatabase, type Database, type EntityManager } from '@gloaming/db';
+import { databaseDialect, ImportJob, Organization, Product, openDatabase, type Database, type EntityManager } from '@gloaming/db';
 import { readRow } from './price-list-row';
 import { rowValues, type PriceListTable } from './price-list-file';
 
@@ -118,6 +118,8 @@ export async function writePlan(em: EntityManager, organizationId: string, plan:
  * be shared, so it writes on the app's connection.)
  */
 async function withWriterConnection(orm: Database, work: (writer: Database) => Promise<void>): Promise<void> {
+  // PostgreSQL's pool has several connections already: the import simply takes one of them.
+  if (databaseDialect(orm) === 'postgresql') return work(orm);
   const file = orm.config.get('dbName');
   if (!file || file === ':memory:') return work(orm);
   const writer = await openDatabase({ file });

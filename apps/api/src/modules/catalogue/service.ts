@@ -1,5 +1,5 @@
 import type { ProductInputParsed, ProductListQuery } from '@gloaming/contracts';
-import { Organization, Product, type EntityManager } from '@gloaming/db';
+import { likeIgnoringCase, Organization, Product, type EntityManager } from '@gloaming/db';
 import type { z } from 'zod';
 import { conflict, notFound } from '../../http/problem';
 import { assertVersion, likePattern } from '../customers/service';
@@ -13,9 +13,9 @@ export async function findFirmProduct(em: EntityManager, organizationId: string,
 }
 
 export async function listProducts(em: EntityManager, organizationId: string, query: ListQuery) {
-  const like = likePattern(query.search);
+  const like = likeIgnoringCase(em, likePattern(query.search));
   const search = query.search
-    ? { $or: [{ name: { $like: like } }, { supplierCode: { $like: like } }, { supplier: { $like: like } }, { description: { $like: like } }] }
+    ? { $or: [{ name: like }, { supplierCode: like }, { supplier: like }, { description: like }] }
     : {};
   const kind = query.kind ? { kind: query.kind } : {};
   const active = query.active === 'all' ? {} : { active: query.active === 'active' };

@@ -1,5 +1,5 @@
 import { MAX_SITES_PER_CUSTOMER, type CustomerInput, type CustomerListQuery, type CustomerUpdate, type SiteInput, type SiteUpdate } from '@gloaming/contracts';
-import { Customer, Organization, Quote, Site, type EntityManager } from '@gloaming/db';
+import { Customer, likeIgnoringCase, Organization, Quote, Site, type EntityManager } from '@gloaming/db';
 import type { z } from 'zod';
 import { conflict, notFound } from '../../http/problem';
 
@@ -28,16 +28,16 @@ export function sitesOf(em: EntityManager, customer: Customer): Promise<Site[]> 
 }
 
 export async function listCustomers(em: EntityManager, organizationId: string, query: ListQuery) {
-  const like = likePattern(query.search);
+  const like = likeIgnoringCase(em, likePattern(query.search));
   const siteMatches = query.search
     ? await em.find(
         Site,
-        { organization: organizationId, $or: [{ postcode: { $like: like } }, { addressLines: { $like: like } }, { label: { $like: like } }] },
+        { organization: organizationId, $or: [{ postcode: like }, { addressLines: like }, { label: like }] },
         { fields: ['customer'], limit: 1000 },
       )
     : [];
   const search = query.search
-    ? { $or: [{ name: { $like: like } }, { email: { $like: like } }, { phone: { $like: like } }, { id: { $in: siteMatches.map((s) => s.customer.id) } }] }
+    ? { $or: [{ name: like }, { email: like }, { phone: like }, { id: { $in: siteMatches.map((s) => s.customer.id) } }] }
     : {};
   const contact = query.contact === 'with-email' ? { email: { $ne: null } } : query.contact === 'without-email' ? { email: null } : {};
   const [customers, total] = await em.findAndCount(Customer, { $and: [{ organization: organizationId }, search, contact] }, {

@@ -11,7 +11,7 @@ import {
   type FigurePeriod,
   type FiguresResponse,
 } from '@gloaming/contracts';
-import { Organization, Quote, QuoteEvent, raw, sqlEm, type EntityManager } from '@gloaming/db';
+import { dateFromSql, dateParam, jsonNumber, jsonValue, Organization, Quote, QuoteEvent, raw, sqlEm, type EntityManager } from '@gloaming/db';
 import { bandOf, funnelOf, monthKey, periodFigures, wonValue, type Milestones, type MoneyMoved } from './figures-math';
 
 export interface PeriodBounds {
@@ -43,14 +43,8 @@ export function resolvePeriod(period: FigurePeriod, now: Date, custom?: { from?:
   return { current: { from, to }, previous: { from: monthStart(y, m + 1 - 2 * months), to: from } };
 }
 
-/** SQLite hands back datetimes as stored (epoch ms or ISO text); either way, a Date. */
-function toDate(v: unknown): Date | null {
-  if (v === null || v === undefined) return null;
-  if (v instanceof Date) return v;
-  if (typeof v === 'number') return new Date(v);
-  if (typeof v === 'string') return /^\d+$/.test(v) ? new Date(Number(v)) : new Date(v.includes('T') || v.endsWith('Z') ? v : `${v.replace(' ', 'T')}Z`);
-  return null;
-}
+/** SQLite hands back datetimes as stored (epoch ms or ISO text), PostgreSQL as timestamptz text; either way, a Date. */
+const toDate = dateFromSql;
 const toInt = (v: unknown): number | null => (v === null || v === undefined || v === '' ? null : Number.isFinite(Number(v)) ? Math.round(Number(v)) : null);
 
 interface MilestoneRow {
@@ -88,8 +82,8 @@ export async function cohortMilestones(em: EntityManager, organizationId: string
       firstAt('approved', 'approved_at'),
       // the newest approval's frozen total (a quote approved again after a revision)
       raw(
-        "(select json_extract(a.data, '$.totalMinor') from quote_events a where a.quote_id = q.id and a.type = 'approved' and a.at < ? order by a.at desc limit 1) as approved_total",
-        [cut.getTime()],
+        `(select ${jsonNumber(em, 'a.data', 'totalMinor')} from quote_events a where a.quote_id = q.id and a.type = 'approved' and a.at < ? order by a.at desc limit 1) as approved_total`,
+        [dateParam(em, cut)],
       ),
       firstAt('deposit-paid', 'deposit_paid_at'),
       firstAt('declined', 'declined_at'),
@@ -106,7 +100,7 @@ export async function cohortMilestones(em: EntityManager, organizationId: string
   if (declined.length) {
     const decl = await sql
       .createQueryBuilder(QuoteEvent, 'e')
-      .select([raw('e.quote_id as quote_id'), raw("json_extract(e.data, '$.reason') as reason"), 'e.at'])
+      .select([raw('e.quote_id as quote_id'), raw(`${jsonValue(em, 'e.data', 'reason')} as reason`), 'e.at'])
       .where({ quote: { $in: declined }, type: 'declined', at: { $lt: cut } })
       .orderBy({ at: 'asc' })
       .execute<{ quote_id: string; reason: unknown }[]>('all', false);
@@ -135,7 +129,7 @@ export async function cohortMilestones(em: EntityManager, organizationId: string
 export async function moneyMoved(em: EntityManager, organizationId: string, bounds: PeriodBounds): Promise<MoneyMoved> {
   const rows = await sqlEm(em)
     .createQueryBuilder(QuoteEvent, 'e')
-    .select(['e.type', raw('count(*) as n'), raw("coalesce(sum(json_extract(e.data, '$.amountMinor')), 0) as amount")])
+    .select(['e.type', raw('count(*) as n'), raw(`coalesce(sum(${jsonNumber(em, 'e.data', 'amountMinor')}), 0) as amount`)])
     .where({ organization: organizationId, type: { $in: ['deposit-paid', 'refunded'] }, at: { $gte: bounds.from, $lt: bounds.to } })
     .groupBy('e.type')
     .execute<{ type: string; n: number; amount: number }[]>('all', false);

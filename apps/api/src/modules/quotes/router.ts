@@ -8,7 +8,7 @@ import {
   type QuoteDetailResponse,
   type QuoteListResponse,
 } from '@gloaming/contracts';
-import { Quote, User, type EntityManager } from '@gloaming/db';
+import { likeIgnoringCase, Quote, User, type EntityManager } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { parsed, validate } from '../../http/validate';
@@ -61,7 +61,7 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         if (status) where.status = status;
         if (estimatorId) where.estimator = estimatorId;
         if (q) {
-          const like = { $like: `%${escapeLike(q)}%` };
+          const like = likeIgnoringCase(em, `%${escapeLike(q)}%`);
           const or: Record<string, unknown>[] = [
             { title: like },
             { customer: { name: like } },
