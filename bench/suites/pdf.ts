@@ -17,7 +17,7 @@ const SUITE = 'pdf';
 
 async function timedPdf(s: ApiSession, path: string): Promise<number> {
   const t0 = performance.now();
-  const res = await fetch(`${s.baseUrl}${path}`, { headers: { cookie: s.cookie } });
+  const res = await fetch(`${s.baseUrl}${path}`, { headers: { cookie: s.cookie }, signal: AbortSignal.timeout(60_000) });
   const bytes = Buffer.from(await res.arrayBuffer());
   const took = performance.now() - t0;
   if (res.status !== 200 || bytes.subarray(0, 5).toString() !== '%PDF-') throw new Error(`${path}: ${res.status} ${bytes.subarray(0, 200).toString()}`);
@@ -31,7 +31,7 @@ async function healthWhile(baseUrl: string, work: () => Promise<unknown>, everyM
   const poller = (async () => {
     while (!done) {
       const t0 = performance.now();
-      const res = await fetch(`${baseUrl}/api/health`);
+      const res = await fetch(`${baseUrl}/api/health`, { signal: AbortSignal.timeout(30_000) });
       await res.arrayBuffer();
       latencies.push(performance.now() - t0);
       await new Promise((r) => setTimeout(r, everyMs));
