@@ -1,5 +1,6 @@
 import type { Database } from '@gloaming/db';
 import type { Auth } from './auth/lucia';
+import type { RateLimitStores } from './auth/rate-limit-store';
 import type { AppConfig } from './config/env';
 import type { MailTransport } from './mail/mailer';
 import type { Outbox, OutboxPolicy } from './mail/outbox';
@@ -28,4 +29,6 @@ export interface ModuleDeps extends Required<Omit<AppDeps, 'mailer' | 'outboxPol
   auth: Auth;
   /** Every e-mail goes through the outbox: `deps.mailer.send(mail, { em })`. */
   mailer: Outbox;
+  /** The store for a named rate limiter (undefined = this process's memory): give one to every limiter. */
+  rateLimits: RateLimitStores;
 }

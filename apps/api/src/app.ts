@@ -3,6 +3,7 @@ import helmet from 'helmet';
 import { RequestContext } from '@gloaming/db';
 import type { AppDeps, Logger, ModuleDeps } from './app-deps';
 import { createLucia } from './auth/lucia';
+import { rateLimitStores } from './auth/rate-limit-store';
 import { checkOrigin, loadSession } from './auth/middleware';
 import { apiNotFound, errorHandler } from './http/problem';
 import type { RegisteredRoute } from './http/routes';
@@ -62,6 +63,7 @@ export function createApp(options: CreateAppOptions): GloamingApp {
     logger,
     storage: options.storage ?? new LocalFileStorage(options.config.dataDir),
     auth: createLucia(options.orm, options.config.secureCookies, options.config.sessions),
+    rateLimits: rateLimitStores(options.orm, options.config.rateLimitStore),
   };
   const routes: RegisteredRoute[] = [];
   const app = express();

@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
+import type { RateLimitStores } from './rate-limit-store';
 import { tooManyRequests } from '../http/problem';
 
 export interface ThrottleSettings {
@@ -19,13 +20,17 @@ function waitPhrase(seconds: number): string {
   return minutes <= 1 ? 'a minute' : `${minutes} minutes`;
 }
 
+/** express-rate-limit's `store` option: the shared store when there is one, else its memory store. */
+export const storeOption = (store: Store | undefined): { store?: Store } => (store ? { store } : {});
+
 /**
  * Sign-in throttles: failed attempts are counted per account (the e-mail typed) and per
  * client IP; successful sign-ins are not counted. Either limit answers 429 problem+json
  * with a clear wait time and a Retry-After header.
  */
-export function signInThrottles(s: ThrottleSettings): RequestHandler[] {
+export function signInThrottles(s: ThrottleSettings, stores: RateLimitStores): RequestHandler[] {
   const perIp = rateLimit({
+    ...storeOption(stores('signin-ip')),
     windowMs: s.windowMs,
     limit: s.maxPerIp,
     skipSuccessfulRequests: true,
@@ -37,6 +42,7 @@ export function signInThrottles(s: ThrottleSettings): RequestHandler[] {
     },
   });
   const perAccount = rateLimit({
+    ...storeOption(stores('signin-account')),
     windowMs: s.windowMs,
     limit: s.maxPerAccount,
     skipSuccessfulRequests: true,
@@ -59,9 +65,13 @@ export function signInThrottles(s: ThrottleSettings): RequestHandler[] {
   return [perIp, perAccount];
 }
 
-/** A general limiter for e-mail-sending public routes (password reset requests). */
-export function emailRequestThrottle(windowMs: number, limit: number): RequestHandler {
+/**
+ * A general limiter for e-mail-sending public routes (password reset requests). Give it
+ * `deps.rateLimits(<limiter name>)` so the count is shared by every api process.
+ */
+export function emailRequestThrottle(windowMs: number, limit: number, store?: Store): RequestHandler {
   return rateLimit({
+    ...storeOption(store),
     windowMs,
     limit,
     standardHeaders: 'draft-8',

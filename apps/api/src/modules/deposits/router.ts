@@ -32,7 +32,7 @@ const badSignature = (detail: string) => new HttpError(400, 'invalid-signature',
 export function depositsRouters(deps: ModuleDeps, registry: RegisteredRoute[], stripe: PaymentClient = createPaymentClient(deps.config.payments)): Router[] {
   const ctx: DepositDeps = { deps, stripe };
   // links that do not work count towards the portal's per-IP limit, as on the portal's own routes
-  const linkThrottle = portalLinkThrottle(deps.config.portalThrottle);
+  const linkThrottle = portalLinkThrottle(deps.config.portalThrottle, deps.rateLimits('portal-link'));
   const access = async (res: Response, em: EntityManager, token: string) => {
     try {
       return await resolvePortalAccess(em, token);

@@ -17,7 +17,7 @@ export function passwordResetRouter(deps: ModuleDeps, registry: RegisteredRoute[
       path: '/',
       summary: 'Ask for a password-reset e-mail',
       policy: publicRoute,
-      before: [emailRequestThrottle(15 * 60_000, 10)],
+      before: [emailRequestThrottle(15 * 60_000, 10, deps.rateLimits('password-reset-request'))],
       schemas: { body: PasswordResetRequest },
       handler: async ({ res, input }) => {
         // Answer at once, the same way whether or not the account exists; the work happens
@@ -40,7 +40,7 @@ export function passwordResetRouter(deps: ModuleDeps, registry: RegisteredRoute[
       path: '/complete',
       summary: 'Set a new password with a reset link',
       policy: publicRoute,
-      before: [emailRequestThrottle(15 * 60_000, 30)],
+      before: [emailRequestThrottle(15 * 60_000, 30, deps.rateLimits('password-reset-complete'))],
       schemas: { body: PasswordResetComplete },
       handler: async ({ res, em, input }) => {
         const user = await consumeToken(em, input.body.token, 'password-reset');

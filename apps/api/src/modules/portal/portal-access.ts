@@ -15,7 +15,8 @@
  * the first time anyone notices).
  */
 import type { RequestHandler, Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
+import { storeOption } from '../../auth/throttle';
 import { portalQuotePath, type PortalFirmContact, type PortalLinkState } from '@gloaming/contracts';
 import {
   Organization,
@@ -184,10 +185,12 @@ export async function resolvePortalAccess(em: EntityManager, rawToken: string, n
 /**
  * Counts failed openings (unknown, withdrawn or expired links) per client IP; working links are
  * not counted. Over the limit, every portal request from that IP answers 429 with a wait time.
+ * Give it `deps.rateLimits('portal-link')` so every api process shares the count.
  * Handlers mark a failure with `markLinkFailure(res)`.
  */
-export function portalLinkThrottle(s: { maxFailedPerIp: number; windowMs: number }): RequestHandler {
+export function portalLinkThrottle(s: { maxFailedPerIp: number; windowMs: number }, store?: Store): RequestHandler {
   return rateLimit({
+    ...storeOption(store),
     windowMs: s.windowMs,
     limit: s.maxFailedPerIp,
     skipSuccessfulRequests: true,

@@ -44,7 +44,7 @@ async function bodyAfterAccess<T extends z.ZodType>(req: Request, res: Response,
 }
 
 export function portalRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
-  const throttle: RequestHandler[] = [portalLinkThrottle(deps.config.portalThrottle)];
+  const throttle: RequestHandler[] = [portalLinkThrottle(deps.config.portalThrottle, deps.rateLimits('portal-link'))];
 
   /** Open the link; a link that does not work counts towards the IP's limit. */
   async function open(res: Response, em: PortalContext['em'], token: string): Promise<PortalContext> {

@@ -13,7 +13,7 @@ export function sessionRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
       path: '/',
       summary: 'Sign in with e-mail and password',
       policy: publicRoute,
-      before: signInThrottles(deps.config.signInThrottle),
+      before: signInThrottles(deps.config.signInThrottle, deps.rateLimits),
       schemas: { body: SignInRequest },
       handler: async ({ req, res, input, em }) => {
         const user = await authenticate(em, input.body.email, input.body.password);

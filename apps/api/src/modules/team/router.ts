@@ -79,7 +79,7 @@ export function teamRouters(deps: ModuleDeps, registry: RegisteredRoute[]) {
       path: '/accept',
       summary: 'Accept an invitation by choosing a password',
       policy: publicRoute,
-      before: [emailRequestThrottle(15 * 60_000, 30)],
+      before: [emailRequestThrottle(15 * 60_000, 30, deps.rateLimits('invite-accept'))],
       schemas: { body: AcceptInviteRequest },
       handler: async ({ req, res, em, input }) => {
         const user = await consumeToken(em, input.body.token, 'invite');
