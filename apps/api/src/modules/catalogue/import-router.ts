@@ -49,6 +49,8 @@ async function findFirmJob(em: EntityManager, organizationId: string, id: string
 
 const upload = multer({
   storage: multer.memoryStorage(),
+  // browsers send file names as UTF-8 without saying so; busboy's latin1 default garbles them
+  defParamCharset: 'utf8',
   limits: { fileSize: MAX_PRICE_LIST_BYTES, files: 1, fields: 10, fieldSize: 10_000 },
 }).single('file');
 

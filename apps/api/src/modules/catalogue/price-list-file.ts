@@ -43,9 +43,39 @@ function uniqueHeaders(raw: string[]): string[] {
   });
 }
 
+/** Magic numbers of files people upload by mistake instead of a CSV. */
+const NOT_CSV: { name: string; magic: number[] }[] = [
+  { name: 'a spreadsheet workbook or another zip file (save it as CSV first)', magic: [0x50, 0x4b, 0x03, 0x04] },
+  { name: 'an older Excel workbook (save it as CSV first)', magic: [0xd0, 0xcf, 0x11, 0xe0] },
+  { name: 'a PDF', magic: [0x25, 0x50, 0x44, 0x46] },
+  { name: 'a PNG image', magic: [0x89, 0x50, 0x4e, 0x47] },
+  { name: 'a JPEG image', magic: [0xff, 0xd8, 0xff] },
+  { name: 'a GIF image', magic: [0x47, 0x49, 0x46, 0x38] },
+];
+/** A control character no text price list holds (tab, line breaks and form feed are fine). */
+function hasBinaryCharacter(text: string): boolean {
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c <= 0x08 || (c >= 0x0e && c <= 0x1f) || c === 0x7f) return true;
+  }
+  return false;
+}
+
+/**
+ * Refuse a file whose bytes are not text, whatever it is called: its magic number names what
+ * it looks like, else control characters give it away.
+ */
+function mustBeText(bytes: Buffer, text: string): void {
+  const known = NOT_CSV.find((k) => k.magic.every((b, i) => bytes[i] === b));
+  if (known) throw new PriceListFileError(`This file is ${known.name}, not a CSV price list.`);
+  if (hasBinaryCharacter(text.slice(0, 64 * 1024)))
+    throw new PriceListFileError('This file is not a text CSV price list (it holds binary data). Save the list as CSV and upload that.');
+}
+
 /** Decode and parse; papaparse guesses the delimiter among comma, semicolon, tab and bar. */
 export function readPriceList(bytes: Buffer, maxRows: number): PriceListTable {
   const { text, encoding } = decodePriceList(bytes);
+  mustBeText(bytes, text);
   const parsed = Papa.parse<string[]>(text, {
     delimiter: '',
     delimitersToGuess: [',', ';', '\t', '|'],
