@@ -8,6 +8,7 @@ import {
   QUOTE_STATUS_LABELS,
   type ActivityEntry,
   type FirmEventType,
+  type FirmSettings,
   type QuoteStatus,
 } from '@gloaming/contracts';
 import { FirmEvent, Organization, QuoteEvent, User, type EntityManager } from '@gloaming/db';
