@@ -21,10 +21,24 @@ export function databaseDialect(orm: Database): DatabaseDialect {
   return sqlDialect(orm.em);
 }
 
-/** Apply every pending migration. Returns the names applied. */
+/** Any fixed number: the PostgreSQL advisory lock key that api processes migrate under. */
+const MIGRATION_LOCK_KEY = 7_140_215;
+
+/**
+ * Apply every pending migration. Returns the names applied. On PostgreSQL, several api
+ * processes may start at once against one database: each waits for a transaction-scoped
+ * advisory lock, so one migrates while the others wait and then find nothing pending.
+ */
 export async function migrate(orm: Database): Promise<string[]> {
-  const applied = await orm.getMigrator().up();
-  return applied.map((m) => m.name);
+  const up = async () => (await orm.getMigrator().up()).map((m) => m.name);
+  if (databaseDialect(orm) !== 'postgresql') return up();
+  return orm.em
+    .getConnection()
+    .getKnex()
+    .transaction(async (trx) => {
+      await trx.raw('select pg_advisory_xact_lock(?)', [MIGRATION_LOCK_KEY]);
+      return up();
+    });
 }
 
 /** True when the entities describe a schema the migrations do not create. */
