@@ -86,7 +86,13 @@ interface CurrentGroup {
   bad: Uint8Array;
 }
 
-function buildGroup(currentA: number, drivers: LedDriver[], marginPct: number, elvMaxV: number, prepared: PreparedString): CurrentGroup | null {
+function buildGroup(
+  currentA: number,
+  drivers: LedDriver[],
+  marginPct: number,
+  elvMaxV: number,
+  prepared: PreparedString,
+): CurrentGroup | null {
   const factor = 1 - marginPct / 100;
   const keep: LedDriver[] = [];
   const lo: number[] = [];
@@ -215,11 +221,21 @@ function walkSegments(w: SegmentWalk, i: number, visit: (j: number, gi: number, 
 export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): SplitResult {
   const n = Array.isArray(run.fittings) ? run.fittings.length : 0;
   const findings: Finding[] = [];
-  const empty = (extra: Finding[]): SplitResult => ({ ok: false, strings: [], totalCostMinor: null, findings: [...findings, ...extra], excludedDrivers });
+  const empty = (extra: Finding[]): SplitResult => ({
+    ok: false,
+    strings: [],
+    totalCostMinor: null,
+    findings: [...findings, ...extra],
+    excludedDrivers,
+  });
   const excludedDrivers: SplitResult['excludedDrivers'] = [];
   if (!Array.isArray(run.links) || run.links.length !== Math.max(0, n - 1)) {
     return empty([
-      finding('run-links-mismatch', 'error', `A run of ${n} fittings needs ${Math.max(0, n - 1)} link cables between them; ${Array.isArray(run.links) ? run.links.length : 0} were given.`),
+      finding(
+        'run-links-mismatch',
+        'error',
+        `A run of ${n} fittings needs ${Math.max(0, n - 1)} link cables between them; ${Array.isArray(run.links) ? run.links.length : 0} were given.`,
+      ),
     ]);
   }
   // one preparation for the whole run: the lead is runs[0], link k is runs[k + 1]
@@ -246,7 +262,14 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
   for (const d of catalogue) {
     const reasons = checkDriverRecord(d).filter(rejectsDriver);
     if (d.output === 'constant-voltage') {
-      reasons.push(finding('cc-fitting-on-cv-supply', 'error', `Driver ${d.id} is a constant-voltage supply; constant-current fittings on it are destroyed.`, { subject: 'driver' }));
+      reasons.push(
+        finding(
+          'cc-fitting-on-cv-supply',
+          'error',
+          `Driver “${d.name ?? d.id}” is a constant-voltage supply; constant-current fittings on it are destroyed.`,
+          { subject: 'driver' },
+        ),
+      );
     }
     const ipKey = d.ipCode ?? '';
     let ip = ipCache.get(ipKey);
@@ -261,7 +284,11 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
     }
     reasons.push(...ip);
     if (d.costMinor === undefined || !Number.isFinite(d.costMinor) || d.costMinor < 0) {
-      reasons.push(finding('driver-price-missing', 'error', `Driver ${d.id} has no price, so it cannot be costed in a split.`, { subject: 'driver' }));
+      reasons.push(
+        finding('driver-price-missing', 'error', `Driver ${d.id} has no price, so it cannot be costed in a split.`, {
+          subject: 'driver',
+        }),
+      );
     }
     if (reasons.length > 0) {
       excludedDrivers.push({ driver: d, reasons });
@@ -313,16 +340,27 @@ export function splitRun(run: RunToSplit, catalogue: readonly LedDriver[]): Spli
     const why = s.result.findings.filter(rejectsDriver);
     if (why.length > 0) {
       findings.push(
-        finding('split-recheck-failed', 'error', `Fittings ${s.from + 1}-${s.to} on ${s.driver.id} failed the full check: ${why[0]!.message}`, {
-          subject: `string:${s.from + 1}-${s.to}`,
-        }),
+        finding(
+          'split-recheck-failed',
+          'error',
+          `Fittings ${s.from + 1}-${s.to} on ${s.driver.id} failed the full check: ${why[0]!.message}`,
+          {
+            subject: `string:${s.from + 1}-${s.to}`,
+          },
+        ),
       );
     }
   }
   return { ok: findings.length === 0, strings, totalCostMinor: best[n]!, findings, excludedDrivers };
 }
 
-function diagnose(prepared: PreparedString, w: SegmentWalk, best: Float64Array, excluded: number, catalogueSize: number): Finding {
+function diagnose(
+  prepared: PreparedString,
+  w: SegmentWalk,
+  best: Float64Array,
+  excluded: number,
+  catalogueSize: number,
+): Finding {
   const { groups, leadOhm, n } = w;
   if (groups.length === 0) {
     return finding(
@@ -357,7 +395,9 @@ function diagnose(prepared: PreparedString, w: SegmentWalk, best: Float64Array, 
       if (g.bad[k] === 1) continue;
       const alone = g.prefixV[k + 1]! - g.prefixV[k]! + g.currentA * leadOhm;
       if (alone <= g.maxHi) tooHigh = false;
-      parts.push(`at ${mA(g.currentA)} it needs ${r2(alone)} V with its lead, the most any driver gives within the firm's margin is ${r2(g.maxHi)} V`);
+      parts.push(
+        `at ${mA(g.currentA)} it needs ${r2(alone)} V with its lead, the most any driver gives within the firm's margin is ${r2(g.maxHi)} V`,
+      );
     }
     if (tooHigh) {
       return finding('split-impossible', 'error', `Even alone, ${name(k)} is too much for any driver: ${parts.join('; ')}.`, {

@@ -120,14 +120,22 @@ export function prepareString(layout: StringLayout): PreparedString {
   let marginPct = layout.firm?.headroomMarginPct ?? DEFAULT_HEADROOM_MARGIN_PCT;
   if (!Number.isFinite(marginPct) || marginPct < 0 || marginPct >= 100) {
     layoutFindings.push(
-      finding('headroom-margin-invalid', 'warning', `The firm's headroom margin must be 0-99 %; using ${DEFAULT_HEADROOM_MARGIN_PCT} %.`),
+      finding(
+        'headroom-margin-invalid',
+        'warning',
+        `The firm's headroom margin must be 0-99 %; using ${DEFAULT_HEADROOM_MARGIN_PCT} %.`,
+      ),
     );
     marginPct = DEFAULT_HEADROOM_MARGIN_PCT;
   }
   let temperatureC = layout.temperatureC ?? profile.dropWorkingTemperatureC;
   if (!Number.isFinite(temperatureC) || temperatureC < -50 || temperatureC > 200) {
     layoutFindings.push(
-      finding('cable-temperature-invalid', 'warning', `A conductor temperature must be -50 to 200 °C; using ${profile.dropWorkingTemperatureC} °C.`),
+      finding(
+        'cable-temperature-invalid',
+        'warning',
+        `A conductor temperature must be -50 to 200 °C; using ${profile.dropWorkingTemperatureC} °C.`,
+      ),
     );
     temperatureC = profile.dropWorkingTemperatureC;
   }
@@ -161,7 +169,9 @@ export function prepareString(layout: StringLayout): PreparedString {
       if (ip.length === 0) ipClean.add(f.ipCode, f.location);
       else layoutFindings.push(...ip);
     }
-    const tail = f.tail ? loopOhm(f.tail.length, f.tail.cable, temperatureC, `${subject}/tail`, layoutFindings) : { lengthM: 0, loopOhm: 0 };
+    const tail = f.tail
+      ? loopOhm(f.tail.length, f.tail.cable, temperatureC, `${subject}/tail`, layoutFindings)
+      : { lengthM: 0, loopOhm: 0 };
     return f.id === undefined
       ? { index, subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm }
       : { index, id: f.id, subject, constantVoltage, ratings, tailLoopOhm: tail.loopOhm };
@@ -249,7 +259,15 @@ export function stringAtCurrent(prepared: PreparedString, currentA: number): Str
     // two literals rather than a spread, so the record has the same keys in the same order
     // without a temporary object per fitting
     return f.id === undefined
-      ? { index: f.index, status: d.status, forwardVoltageV: vf, powerW: vf * currentA, lumens: d.lumens, tailLoopResistanceOhm: f.tailLoopOhm, tailDropV }
+      ? {
+          index: f.index,
+          status: d.status,
+          forwardVoltageV: vf,
+          powerW: vf * currentA,
+          lumens: d.lumens,
+          tailLoopResistanceOhm: f.tailLoopOhm,
+          tailDropV,
+        }
       : {
           index: f.index,
           id: f.id,
@@ -343,15 +361,23 @@ export function checkDriverRecord(driver: LedDriver): readonly Finding[] {
   if (driver.maxPowerW !== undefined && !(Number.isFinite(driver.maxPowerW) && driver.maxPowerW > 0)) {
     out = addInvalid(out, driver, 'maximum power must be positive.');
   }
-  if (driver.efficiency !== undefined && !(Number.isFinite(driver.efficiency) && driver.efficiency > 0 && driver.efficiency <= 1)) {
+  if (
+    driver.efficiency !== undefined &&
+    !(Number.isFinite(driver.efficiency) && driver.efficiency > 0 && driver.efficiency <= 1)
+  ) {
     out = addInvalid(out, driver, 'efficiency must be between 0 and 1 (e.g. 0.88).');
   }
   if (driver.output === 'constant-current' && !vw && !pw) {
     out ??= [];
     out.push(
-      finding('driver-window-missing', 'error', `Driver ${driver.id}: no output voltage or power window is known, so it cannot be checked.`, {
-        subject: 'driver',
-      }),
+      finding(
+        'driver-window-missing',
+        'error',
+        `Driver ${driver.id}: no output voltage or power window is known, so it cannot be checked.`,
+        {
+          subject: 'driver',
+        },
+      ),
     );
   }
   return out ?? NO_FINDINGS;
@@ -468,7 +494,8 @@ export function fillDriverCore(prepared: PreparedString, driver: LedDriver, core
     const byP = powerMaxW !== null ? outputPowerW / powerMaxW : 0;
     loading = Math.max(byV, byP);
   }
-  if (loading !== null && loading <= 1 + 1e-12 && loading > 1 - prepared.marginPct / 100 + 1e-12) verdicts |= VERDICT.headroomBelowMargin;
+  if (loading !== null && loading <= 1 + 1e-12 && loading > 1 - prepared.marginPct / 100 + 1e-12)
+    verdicts |= VERDICT.headroomBelowMargin;
   const limits = prepared.profile.elvLimits;
   for (let k = 0; k < limits.length; k++) {
     if (complianceVoltageV > limits[k]!.dcMaxV + VOLTAGE_EPSILON_V) verdicts |= VERDICT_ELV_BASE << k;
@@ -528,8 +555,22 @@ export function headroomPctOf(core: DriverCore): number | null {
 export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver): DriverEvaluation {
   const core = fillDriverCore(prepared, driver);
   const findings: Finding[] = [...checkDriverRecord(driver)];
-  const driverWhat = `The driver${driver?.id ? ` (${driver.id})` : ''}`;
-  const { cvSupply, currentA, at, cableLoopResistanceOhm, cableDropV, complianceVoltageV, outputPowerW, verdicts, loading, upperW } = core;
+  // People know a driver by its name; the id is only a fallback for records without one.
+  const named = driver?.name ? ` “${driver.name}”` : driver?.id ? ` (${driver.id})` : '';
+  const driverWhat = `The driver${named}`;
+  const driverInText = `the driver${named}`;
+  const {
+    cvSupply,
+    currentA,
+    at,
+    cableLoopResistanceOhm,
+    cableDropV,
+    complianceVoltageV,
+    outputPowerW,
+    verdicts,
+    loading,
+    upperW,
+  } = core;
   if (cvSupply) {
     findings.push(
       finding(
@@ -548,9 +589,14 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
   if (!(efficiency > 0 && efficiency <= 1)) efficiency = ASSUMED_DRIVER_EFFICIENCY;
   if (driver?.efficiency === undefined) {
     findings.push(
-      finding('efficiency-assumed', 'info', `${driverWhat} has no stated efficiency; input power assumes ${ASSUMED_DRIVER_EFFICIENCY * 100} %.`, {
-        subject: 'driver',
-      }),
+      finding(
+        'efficiency-assumed',
+        'info',
+        `${driverWhat} has no stated efficiency; input power assumes ${ASSUMED_DRIVER_EFFICIENCY * 100} %.`,
+        {
+          subject: 'driver',
+        },
+      ),
     );
   }
   const inputPowerW = outputPowerW / efficiency;
@@ -561,7 +607,7 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
       finding(
         'voltage-below-window',
         'error',
-        `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} regulates only from ${core.voltageMinV} V: the fittings may not light or will flicker. Add fittings or choose a driver with a lower window.`,
+        `The string needs ${r2(complianceVoltageV)} V but ${driverInText} regulates only from ${core.voltageMinV} V: the fittings may not light or will flicker. Add fittings or choose a driver with a lower window.`,
         { subject: 'driver', values: { ...values, windowMinV: core.voltageMinV! } },
       ),
     );
@@ -571,7 +617,7 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
       finding(
         'voltage-above-window',
         'error',
-        `The string needs ${r2(complianceVoltageV)} V but ${driverWhat.toLowerCase()} reaches only ${core.voltageMaxV} V: it cannot hold the current and the fittings run dim or flicker. Split the string or choose a higher-voltage driver.`,
+        `The string needs ${r2(complianceVoltageV)} V but ${driverInText} reaches only ${core.voltageMaxV} V: it cannot hold the current and the fittings run dim or flicker. Split the string or choose a higher-voltage driver.`,
         { subject: 'driver', values: { ...values, windowMaxV: core.voltageMaxV! } },
       ),
     );
@@ -581,7 +627,7 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
       finding(
         'power-below-window',
         'error',
-        `The string draws ${r2(outputPowerW)} W, below ${driverWhat.toLowerCase()}'s minimum of ${core.powerMinW} W.`,
+        `The string draws ${r2(outputPowerW)} W, below ${driverInText}'s minimum of ${core.powerMinW} W.`,
         { subject: 'driver', values: { ...values, windowMinW: core.powerMinW! } },
       ),
     );
@@ -591,7 +637,7 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
       finding(
         'power-above-window',
         'error',
-        `The string draws ${r2(outputPowerW)} W, above ${driverWhat.toLowerCase()}'s maximum of ${core.powerMaxW} W.`,
+        `The string draws ${r2(outputPowerW)} W, above ${driverInText}'s maximum of ${core.powerMaxW} W.`,
         { subject: 'driver', values: { ...values, maxW: core.powerMaxW! } },
       ),
     );
@@ -641,7 +687,10 @@ export function evaluateDriverParts(prepared: PreparedString, driver: LedDriver)
     const fixedV = currentA * prepared.runsLoopOhm;
     const per = at.perFittingMaxV;
     maxFittings = Math.max(0, Math.floor((upperV - fixedV + VOLTAGE_EPSILON_V) / per));
-    maxFittingsWithinMargin = Math.max(0, Math.floor((upperV * (1 - prepared.marginPct / 100) - fixedV + VOLTAGE_EPSILON_V) / per));
+    maxFittingsWithinMargin = Math.max(
+      0,
+      Math.floor((upperV * (1 - prepared.marginPct / 100) - fixedV + VOLTAGE_EPSILON_V) / per),
+    );
     maxFittingsBasis = at.uniform ? 'uniform' : 'largest-fitting';
   }
 
