@@ -12,6 +12,8 @@ export interface CaughtMessage {
   id: number;
   receivedAt: string;
   from: string;
+  /** The display name in the From header ('' when it has none). */
+  fromName: string;
   to: string[];
   subject: string;
   text: string;
@@ -66,6 +68,7 @@ export async function startMailCatcher(options: MailCatcherOptions = {}): Promis
             id: nextId++,
             receivedAt: new Date().toISOString(),
             from: addresses(parsed.from)[0] ?? session.envelope.mailFrom?.toString() ?? '',
+            fromName: parsed.from?.value[0]?.name ?? '',
             to: addresses(parsed.to),
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',

@@ -3,6 +3,8 @@ import type { AppConfig } from '../config/env';
 
 export interface OutgoingMail {
   to: string;
+  /** The sender's display name (a firm's e-mail sender name); the address stays the configured one. */
+  fromName?: string;
   subject: string;
   text: string;
   html?: string;
@@ -38,8 +40,14 @@ export function createSmtpMailer(mail: AppConfig['mail']): MailTransport {
   });
   return {
     async send(m) {
-      await transport.sendMail({ from: mail.from, to: m.to, subject: m.subject, text: m.text, ...(m.html ? { html: m.html } : {}), ...(m.attachments ? { attachments: m.attachments } : {}) });
+      await transport.sendMail({ from: m.fromName ? { name: m.fromName, address: fromAddress(mail.from) } : mail.from, to: m.to, subject: m.subject, text: m.text, ...(m.html ? { html: m.html } : {}), ...(m.attachments ? { attachments: m.attachments } : {}) });
     },
     close: () => transport.close(),
   };
+}
+
+/** The bare address of a configured From ("Gloaming <quotes@example.test>" -> "quotes@example.test"). */
+export function fromAddress(from: string): string {
+  const angled = /<([^<>\s]+)>\s*$/.exec(from);
+  return (angled ? angled[1]! : from).trim();
 }

@@ -109,6 +109,7 @@ export function createOutbox(p: {
     try {
       await p.transport.send({
         to: message.to,
+        ...(message.fromName ? { fromName: message.fromName } : {}),
         subject: message.subject,
         text: message.text,
         ...(message.html ? { html: message.html } : {}),
@@ -197,6 +198,7 @@ export function createOutbox(p: {
         kind: options.kind ?? 'mail',
         reference: options.reference ?? null,
         to: mail.to,
+        fromName: mail.fromName ?? null,
         subject: mail.subject,
         text: mail.text,
         html: mail.html ?? null,

@@ -32,6 +32,8 @@ export const OutboxMessage = defineEntity({
     kind: p.string(),
     reference: p.string().nullable().index(),
     to: p.string(),
+    /** The sender's display name (a firm's e-mail sender name); null shows the configured From as it is. */
+    fromName: p.string().nullable(),
     subject: p.string(),
     text: p.text(),
     html: p.text().nullable(),

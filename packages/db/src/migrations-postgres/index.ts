@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201232207_outbox_sender_name } from './Migration20261201232207_outbox_sender_name';
 import { Migration20261201231328_initial } from './Migration20261201231328_initial';
 
 /**
@@ -8,5 +9,6 @@ import { Migration20261201231328_initial } from './Migration20261201231328_initi
  */
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201231328_initial', class: Migration20261201231328_initial },
+  { name: 'Migration20261201232207_outbox_sender_name', class: Migration20261201232207_outbox_sender_name },
   // next migration
 ];

@@ -1,4 +1,5 @@
 import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201232154_outbox_sender_name } from './Migration20261201232154_outbox_sender_name';
 import { Migration20261201225615_rate_limit_counters } from './Migration20261201225615_rate_limit_counters';
 import { Migration20261201225121_outbox_messages } from './Migration20261201225121_outbox_messages';
 import { Migration20261201221527_installer_as_wired_and_commissioning } from './Migration20261201221527_installer_as_wired_and_commissioning';
@@ -22,5 +23,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201221527_installer_as_wired_and_commissioning', class: Migration20261201221527_installer_as_wired_and_commissioning },
   { name: 'Migration20261201225121_outbox_messages', class: Migration20261201225121_outbox_messages },
   { name: 'Migration20261201225615_rate_limit_counters', class: Migration20261201225615_rate_limit_counters },
+  { name: 'Migration20261201232154_outbox_sender_name', class: Migration20261201232154_outbox_sender_name },
   // next migration
 ];

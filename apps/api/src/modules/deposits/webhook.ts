@@ -20,6 +20,7 @@ import {
   type EntityManager,
 } from '@gloaming/db';
 import { formatMoney } from '@gloaming/engine';
+import { senderNameOf } from '../../mail/sender-name';
 import { appendQuoteEvent, revisionSettings } from '../quotes/service';
 import { depositReceiptMail, estimatorDepositNote } from './deposit-mail';
 import { intentId, isPaidState, type DepositDeps, type DepositMetadata } from './service';
@@ -237,7 +238,7 @@ async function sendReceipts(ctx: DepositDeps, paymentId: string): Promise<void> 
         paymentReference: payment.paymentIntentId ?? payment.checkoutSessionId,
         portalLink: null,
       });
-      await deps.mailer.send({ to: customer.email, ...mail });
+      await deps.mailer.send({ to: customer.email, fromName: senderNameOf(quote.organization as Organization), ...mail });
     }
     const note = estimatorDepositNote({
       estimatorName: estimator.name,

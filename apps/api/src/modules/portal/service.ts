@@ -18,6 +18,7 @@ import {
 import {
   Customer,
   OptimisticLockError,
+  Organization,
   PortalToken,
   Quote,
   QuoteApproval,
@@ -34,6 +35,7 @@ import { formatMoney } from '@gloaming/engine';
 import type { ModuleDeps } from '../../app-deps';
 import { hashToken } from '../../auth/tokens';
 import { conflict, HttpError } from '../../http/problem';
+import { senderNameOf } from '../../mail/sender-name';
 import { appendQuoteEvent, revisionContent, revisionSettings, storedTotals } from '../quotes/service';
 import { isPastValidity, PortalAccessError, firmContact, recordExpiryOnce, type PortalAccess } from './portal-access';
 import { priceChoice } from './homeowner-choice';
@@ -72,7 +74,7 @@ function ref(access: PortalAccess, customerName: string) {
  * change was flushed (the outbox retries while the mail server is down); a failure to queue is
  * logged, not fatal.
  */
-async function notify(deps: ModuleDeps, mail: { to: string; subject: string; text: string }): Promise<void> {
+async function notify(deps: ModuleDeps, mail: { to: string; fromName?: string; subject: string; text: string }): Promise<void> {
   if (!mail.to) return;
   try {
     await deps.mailer.send(mail);
@@ -235,6 +237,7 @@ export async function approveQuote(
   const when = new Intl.DateTimeFormat(settings.locale, { dateStyle: 'long', timeStyle: 'short', timeZone: 'UTC' }).format(now);
   await notify(deps, {
     to: access.token.sentTo,
+    fromName: senderNameOf(access.organization),
     ...approvalConfirmationMail({
       ...ref(access, customer.name),
       signedName: approval.signedName,
@@ -341,7 +344,8 @@ export async function replyToHomeowner(
   });
 
   // the e-mail joins the same flush (one transaction): it goes out once the reply is recorded
-  await deps.mailer.send({ to, ...mail }, { em, kind: 'reply', organizationId: quote.organization.id });
+  const firm = await em.findOneOrFail(Organization, quote.organization.id);
+  await deps.mailer.send({ to, fromName: senderNameOf(firm), ...mail }, { em, kind: 'reply', organizationId: quote.organization.id });
   await em.flush();
   return { message, sentTo: to };
 }

@@ -24,6 +24,7 @@ import type { ModuleDeps } from '../../app-deps';
 import { hashToken } from '../../auth/tokens';
 import { conflict, HttpError } from '../../http/problem';
 import { deliveryOf } from '../../mail/outbox';
+import { senderNameOf } from '../../mail/sender-name';
 import { circuitDesign, circuitSettings, firmProducts, listCircuits, productRefs } from '../circuits/service';
 import { buildQuotePdfModel, priceForCustomer, validUntilFor } from '../quote-pdf/build-pdf-model';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
@@ -258,9 +259,11 @@ async function deliver(
 
   // The outbox row joins the same flush (one transaction) as the token, the freeze and the
   // event: the mail exists exactly when the send does, and goes out once that commits.
+  const firm = await em.findOneOrFail(Organization, quote.organization.id);
   const queued = await deps.mailer.send(
     {
       to,
+      fromName: senderNameOf(firm),
       subject: mail.subject,
       text: mail.text,
       attachments: [{ filename: mail.attachmentName, content: pdf, contentType: 'application/pdf' }],
