@@ -10,6 +10,7 @@ import { formatQuoteNumber } from '@gloaming/contracts';
 import {
   Customer,
   DepositPayment,
+  OptimisticLockError,
   Organization,
   PaymentWebhookEvent,
   Quote,
@@ -186,26 +187,32 @@ async function dispatch(em: EntityManager, event: Stripe.Event): Promise<Handled
 /** Process one verified event. Safe to call any number of times, in any order, in parallel. */
 export async function processPaymentEvent(ctx: DepositDeps, em: EntityManager, event: Stripe.Event): Promise<WebhookOutcome> {
   let handled: Handled;
-  try {
-    handled = await em.fork().transactional(async (tx) => {
-      if (await tx.findOne(PaymentWebhookEvent, event.id)) return { outcome: { kind: 'duplicate', detail: 'already processed' }, organizationId: null } satisfies Handled;
-      const result = await dispatch(tx, event);
-      if (result.outcome.kind === 'unknown') {
-        tx.clear(); // nothing of an unknown event is written
+  for (let attempt = 1; ; attempt++) {
+    try {
+      handled = await em.fork().transactional(async (tx) => {
+        if (await tx.findOne(PaymentWebhookEvent, event.id)) return { outcome: { kind: 'duplicate', detail: 'already processed' }, organizationId: null } satisfies Handled;
+        const result = await dispatch(tx, event);
+        if (result.outcome.kind === 'unknown') {
+          tx.clear(); // nothing of an unknown event is written
+          return result;
+        }
+        tx.create(PaymentWebhookEvent, {
+          id: event.id,
+          organization: result.organizationId ? tx.getReference(Organization, result.organizationId) : null,
+          type: event.type,
+          outcome: result.outcome.detail,
+        });
         return result;
-      }
-      tx.create(PaymentWebhookEvent, {
-        id: event.id,
-        organization: result.organizationId ? tx.getReference(Organization, result.organizationId) : null,
-        type: event.type,
-        outcome: result.outcome.detail,
       });
-      return result;
-    });
-  } catch (err) {
-    // a parallel delivery of the same event committed first
-    if (err instanceof UniqueConstraintViolationException) return { kind: 'duplicate', detail: 'already processed' };
-    throw err;
+      break;
+    } catch (err) {
+      // a parallel delivery of the same event committed first
+      if (err instanceof UniqueConstraintViolationException) return { kind: 'duplicate', detail: 'already processed' };
+      // a parallel delivery of another event for the same payment committed first (PostgreSQL runs
+      // them side by side; SQLite one after the other): handle this one again, against what it wrote
+      if (err instanceof OptimisticLockError && attempt < 3) continue;
+      throw err;
+    }
   }
   if (handled.outcome.kind === 'ignored' && handled.outcome.detail.startsWith('ignored: amount mismatch'))
     ctx.deps.logger.error(`payment webhook ${event.id}: ${handled.outcome.detail}`);
