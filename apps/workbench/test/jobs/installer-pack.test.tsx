@@ -110,7 +110,7 @@ describe('AsWiredEditor', () => {
     const body = sent[0]!.body as { version: number | null; blocks: { terminals: { conductors: string[] }[] }[] };
     expect(body.version).toBeNull();
     expect(body.blocks[0]!.terminals[1]!.conductors).toEqual(['fitting:1-', 'fitting:2-']);
-  });
+  }, 20_000);
 });
 
 describe('CommissioningForm', () => {
@@ -121,13 +121,12 @@ describe('CommissioningForm', () => {
     renderWithApp(<CommissioningForm jobId={JOB} circuit={circuit} />);
     const user = userEvent.setup();
     const far = screen.getByLabelText(/Voltage across the last fitting/);
+    const status = () => screen.getByTestId(`commissioning-${CIRCUIT}-far-fitting-voltage-status`).textContent;
     await user.type(far, '2.1');
-    expect(screen.getByTestId(`commissioning-${CIRCUIT}-far-fitting-voltage-status`).textContent).toBe(
-      'Low: outside 2.79–3.41 V',
-    );
+    await waitFor(() => expect(status()).toBe('Low: outside 2.79–3.41 V'));
     await user.clear(far);
     await user.type(far, '3.0');
-    expect(screen.getByTestId(`commissioning-${CIRCUIT}-far-fitting-voltage-status`).textContent).toBe('In range');
+    await waitFor(() => expect(status()).toBe('In range'));
     await user.click(screen.getByLabelText('Polarity checked'));
     await user.click(screen.getByRole('button', { name: 'Save readings' }));
     await screen.findByText('Readings saved, 1 flagged.');
@@ -137,5 +136,5 @@ describe('CommissioningForm', () => {
       checks: { 'polarity-checked': true },
       note: '',
     });
-  });
+  }, 20_000);
 });
