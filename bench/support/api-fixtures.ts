@@ -71,16 +71,19 @@ export async function demoCircuits(s: ApiSession, want = 6): Promise<CircuitView
   return found;
 }
 
-let customerId: string | null = null;
+/** One bench customer per server (each suite starts its own server with a fresh database). */
+const customerIds = new Map<string, string>();
 
 /** A draft quote with `lines` estimate lines and `circuits` circuits (each adds its derived lines). */
 export async function createBenchQuote(s: ApiSession, lines: number, circuits: number, templates: CircuitView[]): Promise<BenchQuote> {
+  let customerId = customerIds.get(s.baseUrl);
   if (!customerId) {
     const customer = await s.call<CustomerResponse>('POST', '/api/customers', {
       name: 'Bench Measurement Ltd',
       sites: [{ label: 'Test garden', addressLines: '1 Long Border', postcode: 'LB1 1AA' }],
     });
     customerId = customer.customer.id;
+    customerIds.set(s.baseUrl, customerId);
   }
   const created = await s.call<QuoteDetailResponse>('POST', '/api/quotes', { customerId });
   const quoteId = created.quote.id;
