@@ -11,6 +11,7 @@ import {
 } from '@gloaming/engine';
 import { useMemo } from 'react';
 import { Button } from '../../../components/ui/button';
+import { useCircuitCheckSettings } from '../hooks/circuit-check-settings';
 import { fmt } from './product-select';
 
 const MEASURE_WORDS: Record<CableChange['measure'], string> = {
@@ -44,9 +45,11 @@ export function LargerCable({
   onChange: (design: CircuitDesign) => void;
   disabled: boolean;
 }) {
+  // The revision's own check settings, as the live check and the api use them.
+  const settings = useCircuitCheckSettings(profile);
   const suggestion = useMemo(
-    () => suggestLargerCable(design, products, cables, { profile }, evaluation),
-    [design, products, cables, profile, evaluation],
+    () => suggestLargerCable(design, products, cables, settings, evaluation),
+    [design, products, cables, settings, evaluation],
   );
   if (!suggestion.needed) return null;
   const runLabel = (id: string) => (design.kind === 'constant-voltage' ? design.runs.find((r) => r.id === id)?.label || id : id);
@@ -131,9 +134,10 @@ export function DriveCurrentComparison({
   onChange: (design: CcCircuitDesign) => void;
   disabled: boolean;
 }) {
+  const settings = useCircuitCheckSettings(profile);
   const comparison = useMemo(
-    () => compareCircuitCurrents(design, products, drivers, { profile }),
-    [design, products, drivers, profile],
+    () => compareCircuitCurrents(design, products, drivers, settings),
+    [design, products, drivers, settings],
   );
   const byId = useMemo(() => new Map([...products, ...drivers].map((p) => [p.id, p])), [products, drivers]);
   const columns = comparison.columns;
