@@ -73,6 +73,7 @@ export async function startTestServer(
       return agent;
     },
     async close() {
+      await built.outbox.idle();
       mailer.close();
       await catcher.close();
       await db.close();
@@ -86,4 +87,3 @@ export function tokenFromMail(text: string): string {
   if (!match) throw new Error(`no token link in: ${text}`);
   return match[1]!;
 }
-      await built.outbox.idle();
