@@ -47,3 +47,17 @@ export function validate<S extends RequestSchemas>(schemas: S): RequestHandler {
 export function parsed<S extends RequestSchemas>(req: Express.Request): Parsed<S> {
   return ((req as unknown as Record<symbol, unknown>)[PARSED] ?? {}) as Parsed<S>;
 }
+
+/**
+ * The body alone, checked inside a handler after the route has found what its path names, so
+ * another firm's id is a 404 whatever the body holds. Same 400 problem shape as `schemas.body`.
+ */
+export function validatedBody<T extends z.ZodType>(req: Express.Request & { body?: unknown }, schema: T): z.output<T> {
+  const result = schema.safeParse(req.body ?? {});
+  if (result.success) return result.data;
+  const errors = result.error.issues.map((issue) => ({
+    path: ['body', ...issue.path.map(String)].join('.'),
+    message: issue.message,
+  }));
+  throw badRequest(errors.length === 1 ? errors[0]!.message : 'Some fields need attention.', errors);
+}

@@ -11,12 +11,10 @@ import {
 } from '@gloaming/contracts';
 import { Circuit, type Organization, Product, newId, type EntityManager } from '@gloaming/db';
 import { evaluateCircuit, suggestForCircuit } from '@gloaming/engine';
-import type { Request, Response } from 'express';
-import type { z } from 'zod';
 import type { ModuleDeps } from '../../app-deps';
 import { conflict } from '../../http/problem';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
-import { parsed, validate } from '../../http/validate';
+import { validatedBody } from '../../http/validate';
 import { recordAcceptances } from './acceptance-events';
 import { presentProduct } from '../catalogue/presenter';
 import { loadQuoteForFirm, loadRevision } from '../quotes/service';
@@ -37,17 +35,6 @@ import {
 
 /** Circuits drive priced lines: owners and estimators (the installer's read-only view comes with the pack). */
 const circuitStaff = allowRoles('owner', 'estimator');
-
-/**
- * The body, validated after the quote and circuit were found: another firm's id is a 404
- * whatever the body holds (the same problem shape as `schemas.body`).
- */
-async function validatedBody<T extends z.ZodType>(req: Request, res: Response, schema: T): Promise<z.output<T>> {
-  await new Promise<void>((resolve, reject) =>
-    validate({ body: schema })(req, res, (err?: unknown) => (err ? reject(err) : resolve())),
-  );
-  return parsed<{ body: T }>(req).body as z.output<T>;
-}
 
 async function scoped(em: EntityManager, organizationId: string, quoteId: string, revisionNumber: number) {
   const quote = await loadQuoteForFirm(em, organizationId, quoteId);
@@ -90,7 +77,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { params: RevisionParams },
       handler: async ({ req, res, em, input, auth }) => {
         const { quote, revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
-        const { area, name, design } = await validatedBody(req, res, CreateCircuitRequest);
+        const { area, name, design } = validatedBody(req, CreateCircuitRequest);
         assertDraft(revision);
         const products = await productsForDesign(em, auth.organizationId, design);
         const existing = await listCircuits(em, revision);
@@ -125,7 +112,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       handler: async ({ req, res, em, input, auth }) => {
         const { quote, revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
         const circuit = await loadCircuit(em, revision, input.params.circuitId);
-        const { version, area, name, position, design } = await validatedBody(req, res, UpdateCircuitRequest);
+        const { version, area, name, position, design } = validatedBody(req, UpdateCircuitRequest);
         assertDraft(revision);
         if (circuit.version !== version)
           throw conflict(
@@ -180,7 +167,7 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { params: RevisionParams },
       handler: async ({ req, res, em, input, auth }) => {
         const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
-        const { design } = await validatedBody(req, res, CircuitSuggestionsRequest);
+        const { design } = validatedBody(req, CircuitSuggestionsRequest);
         const products = await productsForDesign(em, auth.organizationId, design);
         const drivers = (
           await em.find(

@@ -7,11 +7,9 @@ import {
   type SaveAsWiredResponse,
   type SaveCommissioningResponse,
 } from '@gloaming/contracts';
-import type { Request, Response } from 'express';
-import type { z } from 'zod';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
-import { parsed, validate } from '../../http/validate';
+import { validatedBody } from '../../http/validate';
 import { sharedPdfRenderer } from '../quote-pdf/pdf-renderer';
 import { buildInstallerPackPdfModel, installerPackFileName } from './pack-pdf-model';
 import { buildJobPack, jobCircuit, jobPackData, listJobs, loadJob, saveAsWired, saveCommissioning } from './service';
@@ -21,18 +19,6 @@ import { buildJobPack, jobCircuit, jobPackData, listJobs, loadJob, saveAsWired, 
  * sees a price (the presenters send none). Estimates themselves stay with owners and estimators.
  */
 const jobCrew = allowRoles('owner', 'estimator', 'installer');
-
-/**
- * The body, validated after the job and circuit were found, so another firm's id is a 404
- * whatever the body holds (the same problem shape as `schemas.body`; the circuits router does
- * the same).
- */
-async function validatedBody<T extends z.ZodType>(req: Request, res: Response, schema: T): Promise<z.output<T>> {
-  await new Promise<void>((resolve, reject) =>
-    validate({ body: schema })(req, res, (err?: unknown) => (err ? reject(err) : resolve())),
-  );
-  return parsed<{ body: T }>(req).body as z.output<T>;
-}
 
 export function jobsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
   return moduleRouter('/api/jobs', registry, [
@@ -80,7 +66,7 @@ export function jobsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       handler: async ({ req, res, em, input, auth }) => {
         const quote = await loadJob(em, auth.organizationId, input.params.id);
         await jobCircuit(em, quote, input.params.circuitId);
-        const request = await validatedBody(req, res, SaveAsWiredRequest);
+        const request = validatedBody(req, SaveAsWiredRequest);
         const body: SaveAsWiredResponse = {
           asWired: await saveAsWired(em, quote, input.params.circuitId, request, auth.user.id),
         };
@@ -96,7 +82,7 @@ export function jobsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       handler: async ({ req, res, em, input, auth }) => {
         const quote = await loadJob(em, auth.organizationId, input.params.id);
         await jobCircuit(em, quote, input.params.circuitId);
-        const request = await validatedBody(req, res, SaveCommissioningRequest);
+        const request = validatedBody(req, SaveCommissioningRequest);
         const body: SaveCommissioningResponse = {
           commissioning: await saveCommissioning(em, quote, input.params.circuitId, request, auth.user.id),
         };

@@ -1,4 +1,4 @@
-import express, { type Request, type Response } from 'express';
+import express from 'express';
 import {
   CreateQuoteRequest,
   IdParams,
@@ -11,7 +11,7 @@ import {
 import { likeIgnoringCase, Quote, User, type EntityManager } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
-import { parsed, validate } from '../../http/validate';
+import { validatedBody } from '../../http/validate';
 import { presentQuoteEvent, presentQuoteSummary, presentRevision, presentRevisionSummary } from './presenter';
 import {
   createQuote,
@@ -34,17 +34,15 @@ const quoteStaff = allowRoles('owner', 'estimator');
 export const QUOTE_BODY_LIMIT = '12mb';
 export const quoteBodyParser = express.json({ limit: QUOTE_BODY_LIMIT });
 
-/** Run the shared validator on the body alone (same problem shape as `schemas.body`). */
-async function validatedBody(req: Request, res: Response, schema: typeof SaveRevisionRequest): Promise<SaveRevisionRequest> {
-  await new Promise<void>((resolve, reject) => validate({ body: schema })(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
-  return parsed<{ body: typeof SaveRevisionRequest }>(req).body;
-}
-
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 async function detail(em: EntityManager, quote: Quote): Promise<QuoteDetailResponse> {
   const [revision, revisions] = await Promise.all([currentRevision(em, quote), listRevisions(em, quote)]);
-  return { quote: presentQuoteSummary(quote), revision: presentRevision(revision), revisions: revisions.map(presentRevisionSummary) };
+  return {
+    quote: presentQuoteSummary(quote),
+    revision: presentRevision(revision),
+    revisions: revisions.map(presentRevisionSummary),
+  };
 }
 
 export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
@@ -147,7 +145,7 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         // Scope first, so another firm's quote is a 404 whatever the body holds; then the body.
         const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
         const revision = await loadRevision(em, quote, input.params.revisionNumber);
-        const body = await validatedBody(req, res, SaveRevisionRequest);
+        const body = validatedBody(req, SaveRevisionRequest);
         const saved = await saveRevisionContent(em, quote, revision, body.version, body.content);
         res.json({
           revision: {

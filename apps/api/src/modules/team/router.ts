@@ -4,6 +4,7 @@ import type { ModuleDeps } from '../../app-deps';
 import { consumeToken } from '../../auth/tokens';
 import { emailRequestThrottle } from '../../auth/throttle';
 import { allowRoles, moduleRouter, publicRoute, route, type RegisteredRoute } from '../../http/routes';
+import { validatedBody } from '../../http/validate';
 import { presentSessionUser } from '../session/presenter';
 import { startSession } from '../session/service';
 import { presentTeamMember } from './presenter';
@@ -39,13 +40,16 @@ export function teamRouters(deps: ModuleDeps, registry: RegisteredRoute[]) {
       path: '/:id',
       summary: "Change a person's role, or deactivate / reactivate them (their sessions end)",
       policy: ownerOnly,
-      schemas: { params: IdParams, body: UpdateTeamMemberRequest },
-      handler: async ({ res, em, input, auth: ctx }) => {
+      schemas: { params: IdParams },
+      handler: async ({ req, res, em, input, auth: ctx }) => {
+        // Scope first, so another firm's person is a 404 whatever the body holds; then the body.
         const user = await findFirmUser(em, ctx.organizationId, input.params.id);
-        const change = await updateTeamMember(em, auth, ctx.organizationId, ctx.user.id, user, input.body);
+        const body = validatedBody(req, UpdateTeamMemberRequest);
+        const change = await updateTeamMember(em, auth, ctx.organizationId, ctx.user.id, user, body);
         // the acting owner's old session ended with the change: sign this browser in afresh
         if (change.rotateOwnSession) await startSession(auth, res, change.user);
-        else if (change.user.id === ctx.user.id && !change.user.active) res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+        else if (change.user.id === ctx.user.id && !change.user.active)
+          res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
         res.json({ user: presentTeamMember(change.user) });
       },
     }),
