@@ -86,7 +86,8 @@ const md = [
     : 'The machine was quiet (1-minute load average below 3) throughout.',
   '',
   `${met} targets met, ${missed} missed, ${rows.length - met - missed} rows for information or not available. ` +
-    'Benchmarks never fail CI and never run in `npm test`; see DEVELOPERS.md ("Benchmarks") for what each case measures.',
+    'Benchmarks never fail CI and never run in `npm test`; see DEVELOPERS.md ("Benchmarks") for what each case measures, ' +
+    'and [notes.md](notes.md) for what profiling found behind the misses.',
   '',
   table,
   '',
