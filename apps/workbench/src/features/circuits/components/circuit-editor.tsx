@@ -12,6 +12,7 @@ import { CircuitResults } from './circuit-results';
 import { DriveCurrentComparison, LargerCable } from './circuit-what-ifs';
 import { CvCircuitForm } from './cv-circuit-form';
 import { DriverSuggestions } from './driver-suggestions';
+import { RunDiagram } from './run-diagram';
 import { StringDiagram } from './string-diagram';
 import { TerminalSchedule } from './terminal-schedule';
 
@@ -280,6 +281,18 @@ export function CircuitEditor({
               : '✕ The wiring check found problems (listed with the results).'}
           </p>
           <TerminalSchedule plan={live.blocks} />
+        </section>
+      ) : null}
+      {design.kind === 'constant-voltage' && live.cv ? (
+        <section aria-label="Wiring" className="flex flex-col gap-4">
+          <h3 className="text-lead font-semibold text-ink">Wiring</h3>
+          <div className="overflow-x-auto rounded-card bg-surface p-2 ring-1 ring-line">
+            <RunDiagram
+              design={design}
+              cv={live.cv}
+              supplyName={pool.find((p) => p.id === design.supplyProductId)?.name ?? 'not chosen'}
+            />
+          </div>
         </section>
       ) : null}
     </article>

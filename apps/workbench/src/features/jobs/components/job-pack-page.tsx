@@ -2,6 +2,7 @@ import type { CodeProfileId, InstallerProduct, JobPackCircuit } from '@gloaming/
 import { useParams } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
+import { RunDiagram } from '../../circuits/components/run-diagram';
 import { StringDiagram } from '../../circuits/components/string-diagram';
 import { TerminalSchedule } from '../../circuits/components/terminal-schedule';
 import { jobPackPdfUrl, useJobPack } from '../api/get-job-pack';
@@ -51,6 +52,11 @@ function CircuitPack({
             <TerminalSchedule plan={plan} />
             <AsWiredEditor jobId={jobId} circuit={circuit} plan={plan} />
           </>
+        )}
+        {cv && circuit.design.kind === 'constant-voltage' && (
+          <div className="overflow-x-auto rounded-control bg-canvas p-3 ring-1 ring-line">
+            <RunDiagram design={circuit.design} cv={cv} supplyName={circuit.powerName || 'no supply chosen'} />
+          </div>
         )}
         {cv && (
           <div className="overflow-x-auto">
