@@ -65,10 +65,10 @@ describe('a database held busy by another writer', () => {
       await lock.release();
     }
 
-    const list = CustomerListResponse.parse((await estimator.get('/api/customers?q=Fairweather').expect(200)).body);
+    const list = CustomerListResponse.parse((await estimator.get('/api/customers?search=Fairweather').expect(200)).body);
     expect(list.customers).toHaveLength(0);
     await estimator.post('/api/customers').send(body).expect(201);
-    const after = CustomerListResponse.parse((await estimator.get('/api/customers?q=Fairweather').expect(200)).body);
+    const after = CustomerListResponse.parse((await estimator.get('/api/customers?search=Fairweather').expect(200)).body);
     expect(after.customers).toHaveLength(1);
   });
 });
