@@ -15,9 +15,13 @@ import {
   SaveCommissioningResponse,
   type AsWiredBlock,
   type CcCircuitDesign,
+  type CvCircuitDesign,
   type InstallerProduct,
 } from '@gloaming/contracts';
+import { Circuit, Product, newId } from '@gloaming/db';
 import { evaluateCircuit, type DesignProduct } from '@gloaming/engine';
+import { presentProduct } from '../src/modules/catalogue/presenter';
+import { circuitSettings, rederiveRevision, storedResult } from '../src/modules/circuits/service';
 import { startTestServer, type TestServer } from './harness';
 import { createJobFixture } from './job-fixtures';
 
@@ -293,5 +297,110 @@ describe('GET /api/jobs/:id/pack.pdf', () => {
     expect(text).toContain('As wired: safe to power up');
     expect(text).not.toMatch(/£|\bcost\b|\bmargin\b|\bVAT\b/i);
     expect((await installerB.get(`/api/jobs/${job.quote.id}/pack.pdf`)).status).toBe(404);
+  }, 30_000);
+});
+
+describe('GET /api/jobs/:id/pack.pdf, constant voltage', () => {
+  // Trade rules: each fitting draws P / V (the usual design figure); a two-core loop is
+  // 2 x length x R per metre; a hub's feeder carries every fitting, each spoke its own, a
+  // daisy-chain segment every load beyond it (REFERENCES, voltage drop, derived); 1.5 mm² class 5
+  // plain copper is 13.3 ohm/km at 20 °C (IEC 60228 Table 3), x 1.1965 at 70 °C (IEC 60228 Table 3, 70 °C derived).
+  it('draws the run diagram: the supply, each run with its feeder and spans, each fitting with its voltage and drop', async () => {
+    const em = t.orm.em.fork();
+    const cvJob = await createJobFixture(em, t.firmA, 'won');
+    const make = (supplierCode: string, name: string, kind: Product['kind'], spec: Record<string, unknown>) =>
+      em.create(Product, {
+        organization: t.firmA.firm.id,
+        kind,
+        supplier: 'Owlbrook Trade',
+        supplierCode,
+        name,
+        costMinor: 1500,
+        listPriceMinor: 2700,
+        unit: 'each',
+        spec,
+      });
+    const supply = make('OW-PS12', 'Moss 12 V 60 W supply', 'cv-supply', { outputVoltageV: 12, ratedPowerW: 60, ipCode: 'IP67' });
+    const bollard = make('OW-BL4', 'Stour bollard 4 W', 'fitting', {
+      driveMode: 'constant-voltage',
+      nominalVoltageV: 12,
+      powerW: 4,
+      ipCode: 'IP65',
+    });
+    await em.flush();
+    const flex = cvJob.products.cable.id;
+    const placed = (id: string, label: string, spanLengthM: number) => ({
+      id,
+      productId: bollard.id,
+      label,
+      location: 'exposed-outdoor' as const,
+      spanLengthM,
+    });
+    const design: CvCircuitDesign = {
+      kind: 'constant-voltage',
+      supplyProductId: supply.id,
+      supplyLocation: 'sheltered-outdoor',
+      runs: [
+        {
+          id: 'yard',
+          label: 'Courtyard',
+          layout: 'hub',
+          cableProductId: flex,
+          method: 'in-duct',
+          feederLengthM: 6,
+          fittings: [placed('b1', 'Gate', 5), placed('b2', 'Bench', 4), placed('b3', 'Well', 6)],
+        },
+        {
+          id: 'wall',
+          label: 'Wall',
+          layout: 'daisy-chain',
+          cableProductId: flex,
+          method: 'surface-clipped',
+          feederLengthM: 0,
+          fittings: [placed('w1', 'Arch', 3), placed('w2', 'Store', 3)],
+        },
+      ],
+      acknowledgements: [],
+    };
+    const views = [...Object.values(cvJob.products), supply, bollard].map(presentProduct);
+    const circuit = em.create(Circuit, {
+      id: newId(),
+      organization: t.firmA.firm,
+      revision: cvJob.revision,
+      area: 'Courtyard',
+      name: 'Bollards',
+      kind: design.kind,
+      position: 1,
+      design,
+      result: storedResult(evaluateCircuit(design, views, circuitSettings(cvJob.revision, t.firmA.firm))),
+    });
+    await rederiveRevision(em, cvJob.revision, [cvJob.circuit, circuit]);
+    await em.flush();
+
+    const res = await installer.get(`/api/jobs/${cvJob.quote.id}/pack.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const text = (await pdfText(res.body as Buffer)).replace(/\s+/g, ' ');
+    expect(text).toContain('+ conductor');
+    expect(text).toContain('− conductor');
+    expect(text).toContain('Supply');
+    expect(text).toContain('Moss 12 V 60 W supply');
+    expect(text).toContain('Run: Courtyard · hub');
+    expect(text).toContain('Run: Wall · daisy chain');
+    expect(text).toContain('feeder 6 m');
+    expect(text).toContain('junction');
+    for (const words of ['spoke 5 m', 'spoke 4 m', 'spoke 6 m', '3 m']) expect(text).toContain(words);
+    for (const label of ['Gate', 'Bench', 'Well', 'Arch', 'Store']) expect(text).toContain(label);
+    // 4 W / 12 V = 1/3 A a bollard; R = 0.0133 x 1.1965 ohm/m
+    const r = 0.0133 * 1.1965;
+    const amps = 4 / 12;
+    const junction = 12 - 3 * amps * (2 * 6 * r);
+    const hub = [5, 4, 6].map((m) => junction - amps * (2 * m * r));
+    const arch = 12 - 2 * amps * (2 * 3 * r);
+    const store = arch - amps * (2 * 3 * r);
+    for (const v of [...hub, arch, store]) {
+      expect(text).toContain(`${v.toFixed(2)} V`);
+      expect(text).toContain(`drop ${(((12 - v) / 12) * 100).toFixed(1)} %`);
+    }
+    expect(text).not.toMatch(/£|\bcost\b|\bmargin\b|\bVAT\b/i);
   }, 30_000);
 });

@@ -6,8 +6,14 @@ import {
   type PickItem,
 } from '@gloaming/contracts';
 import type { Organization, Quote } from '@gloaming/db';
-import { describeConductorEnd, parseConductorEnd, type CircuitEvaluation } from '@gloaming/engine';
-import type { InstallerPackPdfModel, PackPdfCircuit, PackPdfTable } from '../quote-pdf/installer-pack-model';
+import {
+  describeConductorEnd,
+  parseConductorEnd,
+  type CircuitEvaluation,
+  type CvCircuitDesign,
+  type CvResult,
+} from '@gloaming/engine';
+import type { InstallerPackPdfModel, PackPdfCircuit, PackPdfRunDiagram, PackPdfTable } from '../quote-pdf/installer-pack-model';
 
 const num = (x: number, digits = 2) => String(Math.round(x * 10 ** digits) / 10 ** digits);
 
@@ -25,6 +31,50 @@ function readingRange(r: JudgedReading): string {
 function endWords(text: string, labels: readonly string[]): string {
   const end = parseConductorEnd(text);
   return end ? describeConductorEnd(end, labels).replace(/ -$/, ' −') : text;
+}
+
+const LAYOUT_WORDS: Record<CvCircuitDesign['runs'][number]['layout'], string> = {
+  'daisy-chain': 'daisy chain',
+  'home-run': 'home runs',
+  hub: 'hub',
+};
+
+/** The run diagram's words and figures, as the workbench's run diagram shows them. */
+function runDiagramOf(design: CvCircuitDesign, cv: CvResult, supplyName: string): PackPdfRunDiagram | null {
+  const runs = cv.runs.flatMap((r) => {
+    const d = design.runs.find((x) => x.id === r.id);
+    if (!d || r.fittings.length === 0) return [];
+    const span = (m: number) =>
+      d.layout === 'hub' ? `spoke ${num(m, 1)} m` : d.layout === 'home-run' ? `own ${num(m, 1)} m` : `${num(m, 1)} m`;
+    return [
+      {
+        title: `Run: ${d.label || d.id} · ${LAYOUT_WORDS[d.layout]} · ${r.currentA.toFixed(2)} A`,
+        lead: d.layout === 'hub' ? `feeder ${num(d.feederLengthM, 1)} m` : d.layout === 'home-run' ? 'at the supply' : '',
+        hub: d.layout === 'hub',
+        alongPair: d.layout === 'daisy-chain',
+        fittings: r.fittings.map((f, k) => {
+          const low = !f.withinDropLimit || !f.aboveOwnMinimum;
+          const placement = d.fittings[k];
+          return {
+            number: String(f.position),
+            label: placement?.label || `Fitting ${k + 1}`,
+            span: placement ? span(placement.spanLengthM) : '',
+            voltage: `${f.voltageV.toFixed(2)} V`,
+            // the PDF font has no ✕: the page's mark is spelled out
+            drop: `${low ? 'LOW · ' : ''}drop ${f.dropPct.toFixed(1)} %`,
+            low,
+          };
+        }),
+      },
+    ];
+  });
+  if (runs.length === 0) return null;
+  return {
+    supplyName,
+    nominal: `${num(cv.nominalVoltageV)} V`,
+    legend: `V at each fitting · drop from ${num(cv.nominalVoltageV)} V (limit ${num(cv.dropLimitPct, 1)} %)`,
+    runs,
+  };
 }
 
 export function installerPackFileName(reference: string): string {
@@ -89,6 +139,8 @@ export function buildInstallerPackPdfModel(
               fittingLabels: plan.fittingLabels,
             }
           : null,
+      runDiagram:
+        cv && c.design.kind === 'constant-voltage' ? runDiagramOf(c.design, cv, c.powerName || 'No supply chosen') : null,
       schedules: (plan?.blocks ?? []).map((b) => ({
         title: `Block ${b.number}: ${b.blockType} (${b.ipCode}), fittings ${b.fittings.join(', ')}; ${b.entries.seals} seals, ${b.entries.blankingPlugs} blanking plugs`,
         head: ['Terminal', 'Conductor ends landed', 'Joint'],

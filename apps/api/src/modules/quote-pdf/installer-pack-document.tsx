@@ -1,6 +1,12 @@
 import { Circle, Document, G, Line, Page, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
 import { PDF_FONT } from './fonts';
-import type { InstallerPackPdfModel, PackPdfCircuit, PackPdfDiagram, PackPdfTable } from './installer-pack-model';
+import type {
+  InstallerPackPdfModel,
+  PackPdfCircuit,
+  PackPdfDiagram,
+  PackPdfRunDiagram,
+  PackPdfTable,
+} from './installer-pack-model';
 
 /** The installer's pack: the quote's dusk blue and lamp amber, sized for a clipboard on site. */
 const ink = '#1b2552';
@@ -230,12 +236,157 @@ function Diagram({ d }: { d: PackPdfDiagram }) {
   );
 }
 
+const RUN_FIT_W = 80;
+const SUPPLY_W = 92;
+const BUS_X = 160;
+const ROW_H = 146;
+const RUN_TOP = 28;
+const POS_DY = 32;
+const NEG_DY = 54;
+const FIT_DY = 96;
+
+/**
+ * A constant-voltage circuit's run diagram with react-pdf's Svg primitives, as the workbench
+ * draws it: the supply, each run's pair (+ solid and marked +, − dashed and marked −) with its
+ * cable segments, the fittings across the pair in parallel with the voltage and drop at each.
+ * A fitting past the limit is marked LOW in words and a heavier dashed ring, never by colour.
+ */
+function RunDiagram({ d }: { d: PackPdfRunDiagram }) {
+  const most = Math.max(...d.runs.map((r) => r.fittings.length));
+  const width = Math.max(BUS_X + 30 + most * RUN_FIT_W + 10, 470);
+  const height = RUN_TOP + d.runs.length * ROW_H + 6;
+  const shown = Math.min(515, width);
+  const supplyX = 6;
+  const supplyRight = supplyX + SUPPLY_W;
+  return (
+    <Svg viewBox={`0 0 ${width} ${height}`} style={{ width: shown, height: (shown * height) / width, marginVertical: 4 }}>
+      <G {...svgFont}>
+        <Line x1={6} y1={10} x2={30} y2={10} stroke={ink} strokeWidth={2.2} />
+        <Text x={34} y={13} fill={ink}>
+          + conductor
+        </Text>
+        <Line x1={110} y1={10} x2={134} y2={10} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+        <Text x={138} y={13} fill={ink}>
+          − conductor
+        </Text>
+        <Text x={220} y={13} fill={muted}>
+          {d.legend}
+        </Text>
+        <Rect
+          x={supplyX}
+          y={RUN_TOP + POS_DY - 20}
+          width={SUPPLY_W}
+          height={(d.runs.length - 1) * ROW_H + (NEG_DY - POS_DY) + 40}
+          rx={5}
+          fill="none"
+          stroke={ink}
+          strokeWidth={1.8}
+        />
+        <Text x={supplyX + SUPPLY_W / 2} y={RUN_TOP + POS_DY - 5} fill={ink} textAnchor="middle">
+          Supply
+        </Text>
+        <Text x={supplyX + SUPPLY_W / 2} y={RUN_TOP + POS_DY + 8} fill={muted} textAnchor="middle">
+          {d.supplyName.length > 15 ? `${d.supplyName.slice(0, 14)}…` : d.supplyName}
+        </Text>
+        <Text x={supplyX + SUPPLY_W / 2} y={RUN_TOP + NEG_DY + 8} fill={ink} textAnchor="middle">
+          {d.nominal}
+        </Text>
+        {d.runs.map((run, i) => {
+          const y0 = RUN_TOP + i * ROW_H;
+          const pos = y0 + POS_DY;
+          const neg = y0 + NEG_DY;
+          const fitY = y0 + FIT_DY;
+          const xs = run.fittings.map((_, k) => BUS_X + 30 + k * RUN_FIT_W + RUN_FIT_W / 2);
+          const lastX = xs.at(-1)!;
+          return (
+            <G key={i}>
+              <Text x={BUS_X - 40} y={y0 + 10} fill={ink}>
+                {run.title}
+              </Text>
+              <Text x={supplyRight - 5} y={pos + 3} fill={ink} textAnchor="end">
+                +
+              </Text>
+              <Text x={supplyRight - 5} y={neg + 3} fill={ink} textAnchor="end">
+                −
+              </Text>
+              <Line x1={supplyRight} y1={pos} x2={lastX - 6} y2={pos} stroke={ink} strokeWidth={2.2} />
+              <Line x1={supplyRight} y1={neg} x2={lastX + 6} y2={neg} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
+              {run.lead ? (
+                <Text x={(supplyRight + BUS_X) / 2} y={pos - 5} fill={muted} textAnchor="middle">
+                  {run.lead}
+                </Text>
+              ) : null}
+              {run.hub ? (
+                <G>
+                  <Rect x={BUS_X} y={pos - 7} width={12} height={neg - pos + 14} fill="white" stroke={ink} strokeWidth={1.3} />
+                  <Text x={BUS_X + 6} y={neg + 17} fill={muted} textAnchor="middle">
+                    junction
+                  </Text>
+                </G>
+              ) : null}
+              {run.fittings.map((f, k) => {
+                const fx = xs[k]!;
+                const prevX = k === 0 ? BUS_X : xs[k - 1]!;
+                return (
+                  <G key={k}>
+                    {run.alongPair ? (
+                      <Text x={(prevX + fx) / 2} y={pos - 5} fill={muted} textAnchor="middle">
+                        {f.span}
+                      </Text>
+                    ) : (
+                      <Text x={fx + 9} y={neg + 11} fill={muted}>
+                        {f.span}
+                      </Text>
+                    )}
+                    <Line x1={fx - 6} y1={pos} x2={fx - 6} y2={fitY - 11} stroke={ink} strokeWidth={1.5} />
+                    <Line x1={fx + 6} y1={neg} x2={fx + 6} y2={fitY - 11} stroke={ink} strokeWidth={1.5} strokeDasharray="3 2" />
+                    <Circle cx={fx - 6} cy={pos} r={2.2} fill={ink} />
+                    <Circle cx={fx + 6} cy={neg} r={2.2} fill={ink} />
+                    <Text x={fx - 9} y={fitY - 14} fill={ink} textAnchor="end">
+                      +
+                    </Text>
+                    <Text x={fx + 9} y={fitY - 14} fill={ink}>
+                      −
+                    </Text>
+                    <Circle
+                      cx={fx}
+                      cy={fitY}
+                      r={11}
+                      fill="none"
+                      stroke={ink}
+                      strokeWidth={f.low ? 2.6 : 1.8}
+                      {...(f.low ? { strokeDasharray: '3 2' } : {})}
+                    />
+                    <Text x={fx} y={fitY + 3} fill={ink} textAnchor="middle">
+                      {f.number}
+                    </Text>
+                    <Text x={fx} y={fitY + 22} fill={muted} textAnchor="middle">
+                      {f.label.length > 14 ? `${f.label.slice(0, 13)}…` : f.label}
+                    </Text>
+                    <Text x={fx} y={fitY + 33} fill={ink} textAnchor="middle">
+                      {f.voltage}
+                    </Text>
+                    <Text x={fx} y={fitY + 44} fill={f.low ? alarm : muted} textAnchor="middle">
+                      {f.drop}
+                    </Text>
+                  </G>
+                );
+              })}
+            </G>
+          );
+        })}
+      </G>
+    </Svg>
+  );
+}
+
 function CircuitSection({ c, index }: { c: PackPdfCircuit; index: number }) {
   return (
     <View break={index > 0}>
       <Text style={s.h2}>{`Circuit ${index + 1}. ${c.title}`}</Text>
       <Text style={s.muted}>{`${c.kind} · ${c.power} · ${c.summary}`}</Text>
       {c.diagram && <Diagram d={c.diagram} />}
+      {c.runDiagram && <RunDiagram d={c.runDiagram} />}
       <Table table={c.pick} />
       {c.runs && <Table table={c.runs} />}
       {c.schedules.map((t) => (

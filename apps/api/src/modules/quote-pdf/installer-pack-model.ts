@@ -17,6 +17,24 @@ export interface PackPdfDiagram {
   fittingLabels: string[];
 }
 
+/** A constant-voltage circuit's runs as the run diagram draws them, every figure formatted. */
+export interface PackPdfRunDiagram {
+  supplyName: string;
+  /** e.g. "12 V". */
+  nominal: string;
+  /** e.g. "V at each fitting · drop from 12 V (limit 5 %)". */
+  legend: string;
+  runs: {
+    title: string;
+    /** Over the pair from the supply: "feeder 6 m" (hub), "at the supply" (home run) or "". */
+    lead: string;
+    hub: boolean;
+    /** Span words are drawn along the pair (daisy chain) or beside each fitting's own cable. */
+    alongPair: boolean;
+    fittings: { number: string; label: string; span: string; voltage: string; drop: string; low: boolean }[];
+  }[];
+}
+
 export interface PackPdfReading {
   label: string;
   expected: string;
@@ -32,6 +50,8 @@ export interface PackPdfCircuit {
   power: string;
   summary: string;
   diagram: PackPdfDiagram | null;
+  /** Constant voltage: the run diagram. */
+  runDiagram: PackPdfRunDiagram | null;
   schedules: PackPdfTable[];
   steps: string[];
   /** Constant voltage: each run and the voltage expected at each fitting. */

@@ -3,13 +3,13 @@ import type { CvCircuitDesign, CvResult, CvRunDesign, CvRunResult } from '@gloam
 const FIT_W = 96;
 const SUPPLY_W = 110;
 const BUS_X = 190;
-const ROW_H = 160;
+const ROW_H = 164;
 const TOP = 34;
 /** Within a run's row: the title, the + conductor, the − conductor, the fittings. */
 const TITLE_DY = 14;
 const POS_DY = 38;
 const NEG_DY = 62;
-const FIT_DY = 100;
+const FIT_DY = 104;
 
 const LAYOUT_WORDS: Record<CvRunDesign['layout'], string> = {
   'daisy-chain': 'daisy chain',
@@ -91,7 +91,7 @@ export function RunDiagram({ design, cv, supplyName }: { design: CvCircuitDesign
         Supply
       </text>
       <text x={10 + SUPPLY_W / 2} y={TOP + POS_DY + 8} textAnchor="middle" fontSize="9" fill="currentColor">
-        {clip(supplyName, 20)}
+        {clip(supplyName, 17)}
       </text>
       <text x={10 + SUPPLY_W / 2} y={TOP + NEG_DY + 8} textAnchor="middle" fontSize="10" fill="currentColor">
         {`${cv.nominalVoltageV} V`}
