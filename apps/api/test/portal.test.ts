@@ -4,6 +4,7 @@
  * (once, even in parallel) and declining. Figures are worked by hand beside each check.
  */
 import request from 'supertest';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PortalLinkProblem, PortalQuoteResponse, PortalTotalsResponse } from '@gloaming/contracts';
 import { PortalToken, Quote, QuoteApproval, QuoteEvent, QuoteMessage, QuoteRevision } from '@gloaming/db';
@@ -110,6 +111,30 @@ describe('opening a link', () => {
     const notices = t.catcher.messages().filter((m) => m.to.includes(estimatorEmail()) && m.subject.includes('opened'));
     expect(notices).toHaveLength(1);
     expect(notices[0]!.text).toContain(`http://gloaming.test/quotes/${g.quote.id}`);
+  });
+
+  it("shows the firm's logo through the link once the firm has one, and only through a live link", async () => {
+    const { token } = await sendGarden();
+    const before = PortalQuoteResponse.parse((await api().get(`/api/portal/${token}`).expect(200)).body);
+    expect(before.quote.firm.hasLogo).toBe(false);
+    await api().get(`/api/portal/${token}/logo`).expect(404);
+
+    const owner = await t.signIn('owner');
+    const png = await sharp({ create: { width: 600, height: 200, channels: 3, background: '#1b3a5c' } })
+      .png()
+      .toBuffer();
+    await owner
+      .put('/api/organization/logo')
+      .attach('file', png, { filename: 'nightjar.png', contentType: 'image/png' })
+      .expect(200);
+    const after = PortalQuoteResponse.parse((await api().get(`/api/portal/${token}`).expect(200)).body);
+    expect(after.quote.firm.hasLogo).toBe(true);
+    const logo = await api().get(`/api/portal/${token}/logo`).buffer(true).expect(200);
+    expect(logo.headers['content-type']).toMatch(/^image\/png/);
+    expect((await sharp(logo.body as Buffer).metadata()).width).toBe(600);
+    // an unknown link gets nothing, not even the logo
+    await api().get('/api/portal/not-a-real-link-token-at-all-000000/logo').expect(404);
+    await owner.delete('/api/organization/logo').expect(200);
   });
 
   it('answers an unknown link 404 with nothing about any firm, the same for every unknown link', async () => {

@@ -208,6 +208,7 @@ describe('route x role x firm matrix', () => {
       'POST /api/portal/:token/approval': 'public',
       'POST /api/portal/:token/decline': 'public',
       'GET /api/portal/:token/pdf': 'public',
+      'GET /api/portal/:token/logo': 'public',
       'GET /api/portal/:token/photos/:photoId': 'public',
       'GET /api/quotes/:id/messages': 'owner,estimator',
       'POST /api/quotes/:id/messages': 'owner,estimator',

@@ -27,7 +27,11 @@ export const PortalFirmContact = z.object({
 });
 export type PortalFirmContact = z.infer<typeof PortalFirmContact>;
 
-export const PortalFirm = PortalFirmContact.extend({ vatNumber: z.string() });
+export const PortalFirm = PortalFirmContact.extend({
+  vatNumber: z.string(),
+  /** The firm has uploaded a logo: GET /api/portal/:token/logo serves it. */
+  hasLogo: z.boolean(),
+});
 export type PortalFirm = z.infer<typeof PortalFirm>;
 
 export const PORTAL_LINE_KINDS = ['standard', 'optional', 'alternative'] as const;

@@ -139,7 +139,7 @@ export async function presentPortalQuote(em: EntityManager, access: PortalAccess
     currency: settings.currency,
     locale: settings.locale,
     vatRounding: settings.vatRounding,
-    firm: { ...contact, vatNumber: firm.vatNumber ?? '' },
+    firm: { ...contact, vatNumber: firm.vatNumber ?? '', hasLogo: Boolean(firm.logoPath) },
     customer: { name: customer.name },
     site: site
       ? { label: site.label, addressLines: [...splitLines(site.addressLines), ...(site.postcode ? [site.postcode] : [])] }

@@ -147,6 +147,22 @@ export function portalRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
     }),
     route({
       method: 'get',
+      path: '/:token/logo',
+      summary: "The firm's logo for the quote page",
+      policy: publicRoute,
+      before: throttle,
+      schemas: { params: PortalTokenParams },
+      handler: async ({ res, em, input }) => {
+        const { access } = await open(res, em, input.params.token);
+        const firm = access.organization;
+        if (!firm.logoPath) throw notFound('A logo');
+        const bytes = await deps.storage.get(firm.logoPath);
+        res.setHeader('Cache-Control', 'private, max-age=300');
+        res.type(firm.logoContentType ?? 'image/png').send(bytes);
+      },
+    }),
+    route({
+      method: 'get',
       path: '/:token/photos/:photoId',
       summary: 'A site photo the sent quote shows (JPEG thumbnail)',
       policy: publicRoute,

@@ -71,7 +71,16 @@ function QuoteView({ token, quote }: { token: string; quote: PortalQuoteView }) 
       </a>
       <header className="on-dark bg-dusk-950">
         <div className="mx-auto flex max-w-2xl flex-wrap items-center justify-between gap-2 px-4 py-4 sm:px-6">
-          <span className="text-lead font-semibold break-words text-white">{quote.firm.name}</span>
+          <span className="flex items-center gap-3">
+            {quote.firm.hasLogo ? (
+              <img
+                src={`/api/portal/${encodeURIComponent(token)}/logo`}
+                alt={`${quote.firm.name} logo`}
+                className="h-10 w-auto max-w-32 rounded-control bg-white object-contain p-1"
+              />
+            ) : null}
+            <span className="text-lead font-semibold break-words text-white">{quote.firm.name}</span>
+          </span>
           <span className="rounded-pill bg-dusk-800 px-3 py-1 text-caption font-semibold text-dusk-100">
             Quotation {quote.reference}
           </span>
