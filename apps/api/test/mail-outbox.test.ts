@@ -138,9 +138,11 @@ describe('mail server down, then back', () => {
       console.log(
         `outbox back-off: ${tries.length} hand-overs, gaps ${gaps.map((g) => `${g} ms`).join(', ')} (base ${FAST.retryBaseMs} ms, doubling)`,
       );
-      // each gap is at least the policy's delay for that attempt (the worker's 40 ms tick adds to it)
+      // each gap is at least the policy's delay for that attempt (the worker's 40 ms tick adds to
+      // it), and those floors double: 150 → 300 → 600 → 1200 ms. Upper bounds are not checked: a
+      // busy machine may run a round late, which is not the policy's doing.
       gaps.forEach((gap, i) => expect(gap).toBeGreaterThanOrEqual(retryDelayMs({ ...FAST } as OutboxPolicy, i + 1) - 5));
-      expect(gaps[2]!).toBeGreaterThan(gaps[0]! * 2); // it really grows: 150 → 300 → 600 ms
+      expect(retryDelayMs({ ...FAST } as OutboxPolicy, 3)).toBe(4 * retryDelayMs({ ...FAST } as OutboxPolicy, 1));
       expect(tries.at(-1)!.ok).toBe(true);
       expect(tries.filter((a) => a.ok)).toHaveLength(1);
 
@@ -183,8 +185,13 @@ describe('a restart with pending messages', () => {
     const g = await createGardenQuote(db.orm.em.fork(), firm, { email: 'restart@home.example' });
     const owner = await first.signIn('owner');
     expect((await owner.post(`${sendPath(g)}/send`).send({})).body.delivery).toBe('queued');
-    expect((await owner.post('/api/invites').send({ email: 'restart.invitee@outbox.test', name: 'Ines Restart', role: 'estimator' })).status).toBe(201);
-    expect((await request(first.built.app).post('/api/password-resets').send({ email: firm.users.estimator.email })).status).toBe(202);
+    expect(
+      (await owner.post('/api/invites').send({ email: 'restart.invitee@outbox.test', name: 'Ines Restart', role: 'estimator' }))
+        .status,
+    ).toBe(201);
+    expect((await request(first.built.app).post('/api/password-resets').send({ email: firm.users.estimator.email })).status).toBe(
+      202,
+    );
     const wanted = ['restart@home.example', 'restart.invitee@outbox.test', firm.users.estimator.email];
     await waitUntil(
       async () => (await db.orm.em.fork().count(OutboxMessage, { to: { $in: wanted }, status: 'pending', attempts: 1 })) === 3,
