@@ -5,7 +5,7 @@ import type { AppDeps, Logger, ModuleDeps } from './app-deps';
 import { createLucia } from './auth/lucia';
 import { rateLimitStores } from './auth/rate-limit-store';
 import { checkOrigin, loadSession } from './auth/middleware';
-import { apiNotFound, errorHandler } from './http/problem';
+import { apiNotFound, errorHandler, sendProblem } from './http/problem';
 import type { RegisteredRoute } from './http/routes';
 import { staticApp } from './http/static-apps';
 import { createOutbox, type Outbox } from './mail/outbox';
@@ -41,6 +41,11 @@ export interface GloamingApp {
   routes: RegisteredRoute[];
   /** The e-mail outbox: main.ts runs its delivery worker; tests wait on it with `idle()`. */
   outbox: Outbox;
+  /**
+   * Begin a graceful shutdown: from now on every new request is answered 503 (with
+   * Connection: close) while requests already running finish. `main.ts` calls it on SIGTERM.
+   */
+  drain(): void;
 }
 
 const consoleLogger: Logger = {
@@ -70,6 +75,18 @@ export function createApp(options: CreateAppOptions): GloamingApp {
 
   app.disable('x-powered-by');
   app.set('trust proxy', options.config.trustProxy);
+  let draining = false;
+  app.use((_req, res, next) => {
+    if (!draining) return next();
+    res.setHeader('Connection', 'close');
+    res.setHeader('Retry-After', '5');
+    sendProblem(res, {
+      type: '/problems/shutting-down',
+      title: 'Shutting down',
+      status: 503,
+      detail: 'The server is restarting. Nothing was changed; please try again in a moment.',
+    });
+  });
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -139,5 +156,12 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   if (options.frontEnds?.workbenchDir) app.use(staticApp('/', options.frontEnds.workbenchDir));
 
   app.use(errorHandler((msg, err) => logger.error(msg, err)));
-  return { app, routes, outbox };
+  return {
+    app,
+    routes,
+    outbox,
+    drain: () => {
+      draining = true;
+    },
+  };
 }

@@ -74,7 +74,7 @@ async function main(): Promise<void> {
   }
 
   const mailer = createSmtpMailer(config.mail);
-  const { app, outbox } = createApp({
+  const { app, drain, outbox } = createApp({
     orm,
     config,
     mailer,
@@ -119,6 +119,8 @@ async function main(): Promise<void> {
     if (closing) return;
     closing = true;
     console.log(`${signal}: shutting down…`);
+    // New requests get 503 from here on; running ones finish; the listener stops accepting.
+    drain();
     server.closeIdleConnections();
     const timer = setTimeout(() => server.closeAllConnections(), 5000);
     await new Promise<void>((r) => server.close(() => r()));
