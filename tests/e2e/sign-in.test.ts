@@ -48,7 +48,7 @@ describe('sign-in page', () => {
       await page.waitForLoadState('networkidle');
       await page.screenshot({ path: screenshotPath(`home-${a.role}`), fullPage: true });
 
-      await page.getByRole('button', { name: a.name }).click();
+      await page.getByRole('button', { name: a.name, exact: true }).click();
       await page.getByRole('button', { name: 'Sign out' }).click();
       await page.getByLabel('E-mail').waitFor();
       const session = await page.evaluate(async () => (await fetch('/api/session')).status);
