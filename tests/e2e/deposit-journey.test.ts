@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { EstimateContent, EstimateLine } from '@gloaming/contracts';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
+import { seriousViolations } from '../support/axe';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
@@ -27,7 +28,13 @@ afterAll(async () => {
 const estimator = DEMO_ACCOUNTS.find((a) => a.role === 'estimator')!;
 const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 
-const line = (id: string, description: string, quantityMilli: number, unitPriceMinor: number, extra: Partial<EstimateLine> = {}): EstimateLine => ({
+const line = (
+  id: string,
+  description: string,
+  quantityMilli: number,
+  unitPriceMinor: number,
+  extra: Partial<EstimateLine> = {},
+): EstimateLine => ({
   id,
   productId: null,
   description,
@@ -115,8 +122,15 @@ async function sendQuote(page: Page, customer: { name: string; email: string }):
           if (!r.ok) throw new Error(`${method} ${path}: ${r.status} ${await r.text()}`);
           return r.json();
         });
-      const c = await call('/api/customers', { ...customer, sites: [{ label: 'Home', addressLines: '9 Rowan Walk\nHollin', postcode: 'HL3 9RW' }] });
-      const q = await call('/api/quotes', { customerId: c.customer.id, siteId: c.customer.sites[0].id, title: 'Side path lighting' });
+      const c = await call('/api/customers', {
+        ...customer,
+        sites: [{ label: 'Home', addressLines: '9 Rowan Walk\nHollin', postcode: 'HL3 9RW' }],
+      });
+      const q = await call('/api/quotes', {
+        customerId: c.customer.id,
+        siteId: c.customer.sites[0].id,
+        title: 'Side path lighting',
+      });
       const detail = await fetch(`/api/quotes/${q.quote.id}`).then((r) => r.json());
       await call(`/api/quotes/${q.quote.id}/revisions/1`, { version: detail.revision.version, content }, 'PUT');
       return q.quote.id as string;
@@ -180,6 +194,7 @@ describe('deposit journey', () => {
     const panel = home.page.getByRole('region', { name: 'Deposit' });
     await panel.getByText(DEPOSIT_TEXT).first().waitFor();
     await home.page.screenshot({ path: screenshotPath('deposit-approved-phone'), fullPage: true });
+    expect(await seriousViolations(home.page)).toEqual([]); // axe-core: the deposit panel
     await panel.getByRole('button', { name: `Pay deposit ${DEPOSIT_TEXT}` }).click();
     await home.page.waitForURL(`${server.paymentsUrl}/pay/**`);
     await home.page.getByText(DEPOSIT_TEXT).first().waitFor(); // the fake's page asks for the server's amount
@@ -191,6 +206,7 @@ describe('deposit journey', () => {
     await expect.poll(() => status.innerText(), { timeout: 30_000 }).toContain('Deposit paid. Thank you.');
     expect(await status.innerText()).toContain(DEPOSIT_TEXT);
     await home.page.screenshot({ path: screenshotPath('deposit-return-paid'), fullPage: true });
+    expect(await seriousViolations(home.page)).toEqual([]); // axe-core: the return page, paid
 
     const receipt = await mailTo(customer.email, /Deposit received/);
     expect(receipt.text).toContain(DEPOSIT_TEXT);
@@ -222,7 +238,10 @@ describe('deposit journey', () => {
     await home.page.getByRole('button', { name: `Pay deposit ${DEPOSIT_TEXT}` }).click();
     await home.page.waitForURL(`${server.paymentsUrl}/pay/**`);
     await payOnHostedPage(home.page, '4000 0000 0000 0002'); // provider's test card: declined
-    await home.page.getByText(/declined/i).first().waitFor(); // the payment page says so and stays open
+    await home.page
+      .getByText(/declined/i)
+      .first()
+      .waitFor(); // the payment page says so and stays open
     await home.page.screenshot({ path: screenshotPath('deposit-hosted-declined'), fullPage: true });
 
     // back to the quote: the refusal is shown there too, with a retry
@@ -230,6 +249,7 @@ describe('deposit journey', () => {
     const panel = home.page.getByRole('region', { name: 'Deposit' });
     await expect.poll(() => panel.innerText(), { timeout: 20_000 }).toContain('declined');
     await home.page.screenshot({ path: screenshotPath('deposit-failed-phone'), fullPage: true });
+    expect(await seriousViolations(home.page)).toEqual([]); // axe-core: the quote page with the refused deposit
     expect(await statusInWorkbench(staff.page, quoteId)).toContain('Approved');
 
     await panel.getByRole('button', { name: `Try again: pay ${DEPOSIT_TEXT}` }).click();

@@ -5,23 +5,20 @@
  * quote is declined with a reason. axe-core runs on every portal page (no serious or critical
  * violations). Figures worked by hand beside each check.
  */
-import { readFile } from 'node:fs/promises';
-import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { EstimateContent, EstimateLine } from '@gloaming/contracts';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import type { BrowserContext, Page } from 'playwright-core';
+import { seriousViolations } from '../support/axe';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
 let server: RunningServer;
 let browser: BrowserSession;
-let axeSource: string;
 
 beforeAll(async () => {
   server = await startBuiltServer();
   browser = await launchBrowser();
-  axeSource = await readFile(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 });
 afterAll(async () => {
   await browser?.close();
@@ -130,19 +127,6 @@ async function sendQuote(staff: Page, customer: { name: string; email: string })
   const link = /http:\/\/127\.0\.0\.1:\d+\/portal\/q\/[A-Za-z0-9_-]+/.exec(mail.text)?.[0];
   if (!link) throw new Error(`no portal link in: ${mail.text}`);
   return { quoteId, link };
-}
-
-interface AxeResult {
-  violations: { id: string; impact: string | null; help: string; nodes: { target: string[] }[] }[];
-}
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const result = (await page.evaluate(() =>
-    (window as unknown as { axe: { run: () => Promise<unknown> } }).axe.run(),
-  )) as AxeResult;
-  return result.violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id} (${v.impact}): ${v.help} at ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
 
 let staffContext: BrowserContext;
