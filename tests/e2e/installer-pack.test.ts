@@ -49,9 +49,9 @@ describe("installer's pack", () => {
     expect(await jobs.textContent()).not.toContain('£');
     await jobs.getByRole('link', { name: /Courtyard and bollards/ }).click();
     await page.getByRole('heading', { name: 'Courtyard and bollards', level: 1 }).waitFor();
-    await expect.poll(() => page.getByRole('complementary', { name: 'Electrical caution' }).textContent()).toContain(
-      'licensed electrician',
-    );
+    await expect
+      .poll(() => page.getByRole('complementary', { name: 'Electrical caution' }).textContent())
+      .toContain('licensed electrician');
 
     // pick list: the bench (driver, supply, cable cuts) and the van (fittings, junctions, seals)
     const bench = page.getByRole('table', { name: 'bench items' });
@@ -70,7 +70,8 @@ describe("installer's pack", () => {
     await block3.waitFor();
     expect(await block3.textContent()).toContain('fittings 7, 8, 9');
     expect(await page.getByRole('list', { name: 'Installer’s steps' }).locator('li').count()).toBeGreaterThan(5);
-    await page.getByRole('img', { name: /Wiring diagram/ }).waitFor();
+    await page.getByRole('img', { name: /Wiring diagram: .* in series/ }).waitFor();
+    await page.getByRole('img', { name: /Wiring diagram: .* in parallel/ }).waitFor(); // the 12 V run diagram
     await page.screenshot({ path: screenshotPath('installer-pack-phone'), fullPage: true });
 
     // as wired: fitting 9's − landed on terminal 3 with its own + instead of terminal 4 with the return
@@ -110,9 +111,18 @@ describe("installer's pack", () => {
     await current.fill('0.351');
     const far = page.getByLabel(/^Voltage across the last fitting/).first();
     await far.fill('2.1');
-    await page.getByLabel(/^Insulation resistance/).first().fill('200');
-    await page.getByLabel(/^Polarity checked/).first().check();
-    await page.getByLabel(/^Every connector block, gland and entry sealed/).first().check();
+    await page
+      .getByLabel(/^Insulation resistance/)
+      .first()
+      .fill('200');
+    await page
+      .getByLabel(/^Polarity checked/)
+      .first()
+      .check();
+    await page
+      .getByLabel(/^Every connector block, gland and entry sealed/)
+      .first()
+      .check();
     const farStatus = page.locator('[data-testid$="-far-fitting-voltage-status"]').first();
     await expect.poll(() => farStatus.textContent()).toBe('Low: outside 2.79–3.41 V');
     expect(await page.locator('[data-testid$="-output-current-status"]').first().textContent()).toBe('In range');

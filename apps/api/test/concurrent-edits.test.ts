@@ -10,7 +10,7 @@ import { gardenEstimate } from './estimate-fixture';
  * Two estimators editing the same revision at the same moment: real requests race through
  * the api (not one after the other). Exactly one save wins; every other save made on the same
  * version gets 409 with a clear message, and what is stored is precisely the winner's estimate
- * (no lost update, no mixture).
+ * (no lost update, no mixture). And one account signing in from several places at once.
  */
 let t: TestServer;
 beforeAll(async () => {
@@ -73,5 +73,15 @@ describe('two estimators saving the same revision at once', () => {
       expect(stored.revision.version).toBeGreaterThan(current.revision.version);
     }
     expect(opened.revision.number).toBe(1);
+  });
+
+  it('signs one account in from several places at the same moment: every sign-in succeeds', async () => {
+    const { email } = t.firmA.users.estimator;
+    const attempts = await Promise.all(
+      Array.from({ length: 8 }, () => request(t.app).post('/api/session').send({ email, password: t.firmA.password })),
+    );
+    expect(attempts.map((r) => r.status)).toEqual(Array(8).fill(200));
+    const user = await t.orm.em.fork().findOneOrFail(User, { email });
+    expect(user.lastSignInAt).toBeInstanceOf(Date);
   });
 });

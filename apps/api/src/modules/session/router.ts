@@ -1,4 +1,5 @@
 import { SignInRequest } from '@gloaming/contracts';
+import { User } from '@gloaming/db';
 import { signInThrottles } from '../../auth/throttle';
 import type { ModuleDeps } from '../../app-deps';
 import { anySignedIn, moduleRouter, publicRoute, route, type RegisteredRoute } from '../../http/routes';
@@ -17,8 +18,10 @@ export function sessionRouter(deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { body: SignInRequest },
       handler: async ({ req, res, input, em }) => {
         const user = await authenticate(em, input.body.email, input.body.password);
-        user.lastSignInAt = new Date();
-        await em.flush();
+        // A bookkeeping stamp, written without the row's version check: two sign-ins to one
+        // account at the same moment (two tabs, two devices) must both succeed, and neither
+        // should make someone's open edit of that person look stale.
+        await em.nativeUpdate(User, { id: user.id }, { lastSignInAt: new Date() });
         const previous = auth.readSessionCookie(req.headers.cookie ?? '') ?? undefined;
         await startSession(auth, res, user, previous);
         res.status(200).json({ user: presentSessionUser(user) });
