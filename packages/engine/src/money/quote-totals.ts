@@ -15,6 +15,7 @@
 import { finding, type Finding } from '../findings';
 import { allocateMinor } from './allocate';
 import { assertNonNegativeInteger, MoneyInputError } from './integer-math';
+import { LineIdRegister } from './line-id-register';
 import { extendMinor } from './quantity';
 import { applyBasisPoints, BASIS_POINTS, marginOf } from './rates';
 import { lineVatTenths, vatByRate, VAT_ROUNDINGS, type VatRateTotal, type VatRounding } from './vat';
@@ -148,19 +149,14 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   if (input.deposit) checkDiscount(input.deposit, 'deposit');
   const findings: Finding[] = [];
   const n = lines.length;
-  const ids = new Set<string>();
+  const ids = new LineIdRegister(lines, n);
   const groups = new Map<string, number[]>();
-  // Each line's figures go into compact columns first and its output record is written once,
-  // at the end, with its final values: the working set stays small (5,000 lines fit the CPU
-  // cache) and no record is read back and rewritten. Columns are sized once (no growth).
-  const grossCol = new Array<number>(n);
-  const lineDiscountCol = new Array<number>(n);
-  const netCol = new Array<number>(n);
-  const costCol = new Array<number>(n);
-  /** 1 when the line counts in the totals. */
-  const includedCol = new Uint8Array(n);
-  // Sums of the included lines before the quote discount, gathered in the same pass.
-  /** The included lines' nets before the quote discount: the weights its shares go by. */
+  // Each line's output record is made in the first pass, with its figures before the quote
+  // discount; the second pass touches only the records (never the input again), taking the
+  // quote discount's share off the counted ones and working out their VAT. On a long
+  // estimate that is what keeps the work linear: the input is read once, from start to end.
+  const out = new Array<QuoteLineTotal>(n);
+  /** The counted lines' nets before the quote discount: the weights its shares go by. */
   const includedNet = new Float64Array(n);
   let includedCount = 0;
   let missingCost = 0;
@@ -180,8 +176,10 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     if (typeof line.id !== 'string' || line.id === '') {
       throw new MoneyInputError('missing-id', `lines[${i}].id`, `lines[${i}] needs an id.`);
     }
-    ids.add(line.id);
-    if (ids.size !== i + 1) throw new MoneyInputError('duplicate-id', `lines[${i}].id`, `Line id "${line.id}" is used twice.`);
+    const earlier = ids.add(line.id, i);
+    if (earlier !== -1) {
+      throw new MoneyInputError('duplicate-id', `lines[${i}].id`, `Line id "${line.id}" is used twice (lines ${earlier + 1} and ${i + 1}).`);
+    }
     if (!isCount(line.quantityMilli)) assertNonNegativeInteger(line.quantityMilli, `lines[${i}].quantityMilli`);
     if (!isCount(line.unitPriceMinor)) assertNonNegativeInteger(line.unitPriceMinor, `lines[${i}].unitPriceMinor`);
     if (!isCount(line.vatRateBp)) assertNonNegativeInteger(line.vatRateBp, `lines[${i}].vatRateBp`);
@@ -236,7 +234,6 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       included = line.selected === true;
     }
     if (included) {
-      includedCol[i] = 1;
       includedNet[includedCount] = netMinor;
       includedCount++;
       if (line.unitCostMinor === undefined) missingCost++;
@@ -244,16 +241,24 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
       lineDiscountSum += lineDiscountMinor;
       preQuoteNet += netMinor;
     }
-    grossCol[i] = grossMinor;
-    lineDiscountCol[i] = lineDiscountMinor;
-    netCol[i] = netMinor;
-    costCol[i] = costMinor;
+    out[i] = {
+      id: line.id,
+      included,
+      grossMinor,
+      lineDiscountMinor,
+      quoteDiscountMinor: 0,
+      netMinor,
+      vatRateBp: line.vatRateBp,
+      vatTenths: null,
+      costMinor,
+      marginMinor: netMinor - costMinor,
+    };
   }
 
   let excludedLater = false;
   for (const [group, members] of groups) {
     const chosen: number[] = [];
-    for (const i of members) if (includedCol[i] === 1) chosen.push(i);
+    for (const i of members) if (out[i]!.included) chosen.push(i);
     if (chosen.length === 0) {
       findings.push(
         finding(
@@ -267,7 +272,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
         ),
       );
     } else if (chosen.length > 1) {
-      for (let c = 1; c < chosen.length; c++) includedCol[chosen[c]!] = 0;
+      for (let c = 1; c < chosen.length; c++) out[chosen[c]!]!.included = false;
       excludedLater = true;
       findings.push(
         finding(
@@ -291,13 +296,14 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     lineDiscountSum = 0;
     preQuoteNet = 0;
     for (let i = 0; i < n; i++) {
-      if (includedCol[i] !== 1) continue;
-      includedNet[includedCount] = netCol[i]!;
+      const o = out[i]!;
+      if (!o.included) continue;
+      includedNet[includedCount] = o.netMinor;
       includedCount++;
       if (lines[i]!.unitCostMinor === undefined) missingCost++;
-      grossSum += grossCol[i]!;
-      lineDiscountSum += lineDiscountCol[i]!;
-      preQuoteNet += netCol[i]!;
+      grossSum += o.grossMinor;
+      lineDiscountSum += o.lineDiscountMinor;
+      preQuoteNet += o.netMinor;
     }
   }
   if (!Number.isSafeInteger(grossSum)) {
@@ -305,7 +311,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   }
 
   let quoteDiscountMinor = 0;
-  /** Each included line's share of the quote discount, in line order; null when none. */
+  /** Each counted line's share of the quote discount, in line order; null when none. */
   let shares: number[] | null = null;
   if (input.discount) {
     quoteDiscountMinor = takeFrom(preQuoteNet, input.discount);
@@ -333,32 +339,24 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
   // estimates run long stretches at one rate: look the rate up only when it changes
   let lastRateBp = -1;
   let r: { netMinor: number; vatTenths: number } | undefined;
-  const out = new Array<QuoteLineTotal>(n);
-  let k = 0; // index among the included lines
+  let k = 0; // index among the counted lines
   for (let i = 0; i < n; i++) {
-    const line = lines[i]!;
-    const lineCost = costCol[i]!;
-    let lineNet = netCol[i]!;
-    if (includedCol[i] !== 1) {
-      out[i] = {
-        id: line.id,
-        included: false,
-        grossMinor: grossCol[i]!,
-        lineDiscountMinor: lineDiscountCol[i]!,
-        quoteDiscountMinor: 0,
-        netMinor: lineNet,
-        vatRateBp: line.vatRateBp,
-        vatTenths: null,
-        costMinor: lineCost,
-        marginMinor: lineNet - lineCost,
-      };
-      continue;
+    const o = out[i]!;
+    if (!o.included) continue;
+    let lineNet = o.netMinor;
+    if (shares !== null) {
+      const share = shares[k]!;
+      k++;
+      if (share !== 0) {
+        lineNet -= share;
+        o.quoteDiscountMinor = share;
+        o.netMinor = lineNet;
+        o.marginMinor = lineNet - o.costMinor;
+      }
     }
-    const share = shares === null ? 0 : shares[k]!;
-    k++;
-    lineNet -= share;
-    const rateBp = line.vatRateBp;
+    const rateBp = o.vatRateBp;
     const vatTenths = lineVatTenths(lineNet, rateBp, vatRounding);
+    o.vatTenths = vatTenths;
     if (rateBp !== lastRateBp || r === undefined) {
       lastRateBp = rateBp;
       r = rates.get(rateBp);
@@ -370,19 +368,7 @@ export function computeQuoteTotals(input: QuoteInput): QuoteTotals {
     r.netMinor += lineNet;
     if (vatTenths !== null) r.vatTenths += vatTenths;
     netMinor += lineNet;
-    costMinor += lineCost;
-    out[i] = {
-      id: line.id,
-      included: true,
-      grossMinor: grossCol[i]!,
-      lineDiscountMinor: lineDiscountCol[i]!,
-      quoteDiscountMinor: share,
-      netMinor: lineNet,
-      vatRateBp: rateBp,
-      vatTenths,
-      costMinor: lineCost,
-      marginMinor: lineNet - lineCost,
-    };
+    costMinor += o.costMinor;
   }
   const vat = vatByRate(rates, vatRounding);
   const totalMinor = netMinor + vat.vatMinor;
