@@ -1,23 +1,25 @@
 import '@fontsource/ibm-plex-sans/400.css';
 import '@fontsource/ibm-plex-sans/600.css';
 import './styles/theme.css';
-import { StrictMode } from 'react';
-import { createRoot } from 'react-dom/client';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { RouterProvider } from 'react-router-dom';
-import { createQueryClient } from './lib/query-client';
-import { createPortalRouter } from './app/router';
+import { matchPortalRoute } from './app/portal-route';
+import { startQuoteFetch } from './features/quote/api/early-quote';
 
+/*
+ * The entry module is kept small: it asks for the quote straight away, while React and the
+ * pages (app/mount-portal, preloaded by index.html) are still downloading.
+ */
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element.');
 
-const queryClient = createQueryClient();
-const router = createPortalRouter();
+const route = matchPortalRoute(window.location.pathname, window.location.search);
+if (route.kind === 'quote') startQuoteFetch(route.token);
 
-createRoot(root).render(
-  <StrictMode>
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>
-  </StrictMode>,
-);
+import('./app/mount-portal')
+  .then(({ mountPortal }) => mountPortal(root, route))
+  .catch(() => {
+    const message = document.createElement('p');
+    message.setAttribute('role', 'alert');
+    message.className = 'p-6';
+    message.textContent = 'This page could not load. Check your connection and reload the page.';
+    root.replaceChildren(message);
+  });

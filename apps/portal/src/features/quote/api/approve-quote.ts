@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PortalApprovalResponse, PortalApprovalRequest, PortalQuoteView } from '@gloaming/contracts';
 import { answerWith, apiRequest } from '../../../lib/http-client';
-import { portalPath } from './get-quote';
+import { portalPath } from './fetch-quote';
 import { quoteKeys } from './quote-keys';
 
 export const approveQuote = (token: string, body: PortalApprovalRequest) =>

@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import type { PortalTotalsResponse, PortalSelection } from '@gloaming/contracts';
 import { answerWith, apiRequest } from '../../../lib/http-client';
-import { portalPath } from './get-quote';
+import { portalPath } from './fetch-quote';
 
 /** The server's totals for a choice: the figures that count. */
 export const priceChoice = (token: string, selection: PortalSelection) =>

@@ -1,5 +1,4 @@
 import { useEffect, useMemo, useState } from 'react';
-import { useParams } from 'react-router-dom';
 import type { PortalQuoteView, PortalSelection, PortalTotals } from '@gloaming/contracts';
 import { Card } from '../../../components/ui/card';
 import { formatters, type Formatters } from '../../../components/ui/format';
@@ -15,8 +14,8 @@ import { QuoteSections } from './quote-sections';
 import { QuoteTotals } from './quote-totals';
 import { DepositPanel } from '../../deposit/deposit-panel';
 
-export function QuotePage() {
-  const { token = '' } = useParams();
+/** /portal/q/<token>: the quote the link opens, or what went wrong with the link. */
+export function QuotePage({ token }: { token: string }) {
   const quote = useQuote(token);
   if (quote.isPending)
     return (
