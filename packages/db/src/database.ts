@@ -59,11 +59,20 @@ export async function seedDemoIfEmpty(orm: Database): Promise<boolean> {
   return true;
 }
 
+/**
+ * Migrations are only ever applied at start-up (and none can appear in a running process's
+ * code), so once a database is known to have none pending that answer is kept: the health
+ * check then costs one trivial query, not a read of the migrations table and the list.
+ */
+const upToDate = new WeakSet<Database>();
+
 /** Database health for /api/health: a trivial query and the pending-migration count. */
 export async function databaseStatus(orm: Database): Promise<{ ok: boolean; pendingMigrations: number; detail?: string }> {
   try {
     await orm.em.fork().getConnection().execute('select 1 as ok');
+    if (upToDate.has(orm)) return { ok: true, pendingMigrations: 0 };
     const pending = await orm.getMigrator().getPendingMigrations();
+    if (pending.length === 0) upToDate.add(orm);
     return { ok: true, pendingMigrations: pending.length };
   } catch (err) {
     return { ok: false, pendingMigrations: -1, detail: err instanceof Error ? err.message : String(err) };

@@ -1,5 +1,5 @@
 import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia';
-import { Session, type Database } from '@gloaming/db';
+import { findSessionWithUser, Session, type Database } from '@gloaming/db';
 
 /**
  * Lucia's storage interface over MikroORM. Each call uses its own fork of the entity
@@ -14,24 +14,25 @@ export class MikroOrmSessionAdapter implements Adapter {
 
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
     const em = this.orm.em.fork();
-    const session = await em.findOne(Session, { id: sessionId }, { populate: ['user', 'user.organization'] });
-    if (!session) return [null, null];
-    if (Date.now() - session.createdAt.getTime() >= this.absoluteMs) {
-      await em.nativeDelete(Session, { id: session.id });
+    // every signed-in request comes here: one query for plain values, no entities to track
+    const found = await findSessionWithUser(em, sessionId);
+    if (!found) return [null, null];
+    if (Date.now() - found.createdAt.getTime() >= this.absoluteMs) {
+      await em.nativeDelete(Session, { id: found.sessionId });
       return [null, null];
     }
-    const user = session.user;
+    const { user } = found;
     if (!user.active) return [null, null];
     return [
-      { id: session.id, userId: user.id, expiresAt: session.expiresAt, attributes: { organizationId: session.organization.id } },
+      { id: found.sessionId, userId: user.id, expiresAt: found.expiresAt, attributes: { organizationId: found.sessionOrganizationId } },
       {
         id: user.id,
         attributes: {
           email: user.email,
           name: user.name,
           role: user.role,
-          organizationId: user.organization.id,
-          organizationName: user.organization.name,
+          organizationId: user.organizationId,
+          organizationName: user.organizationName,
         },
       },
     ];

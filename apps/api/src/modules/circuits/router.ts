@@ -17,7 +17,7 @@ import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../htt
 import { validatedBody } from '../../http/validate';
 import { recordAcceptances } from './acceptance-events';
 import { presentProduct } from '../catalogue/presenter';
-import { loadQuoteForFirm, loadRevision } from '../quotes/service';
+import { loadQuoteWithFirm, loadRevision } from '../quotes/service';
 import {
   assertDraft,
   circuitDesign,
@@ -37,7 +37,7 @@ import {
 const circuitStaff = allowRoles('owner', 'estimator');
 
 async function scoped(em: EntityManager, organizationId: string, quoteId: string, revisionNumber: number) {
-  const quote = await loadQuoteForFirm(em, organizationId, quoteId);
+  const quote = await loadQuoteWithFirm(em, organizationId, quoteId);
   const revision = await loadRevision(em, quote, revisionNumber);
   return { quote, revision, firm: quote.organization as Organization };
 }

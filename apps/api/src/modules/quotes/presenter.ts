@@ -34,12 +34,15 @@ export function presentQuoteSummary(quote: Quote): QuoteSummary {
   };
 }
 
-function totalsOf(revision: QuoteRevision): RevisionTotals | null {
+function totalsOf(revision: Pick<QuoteRevision, 'totals'>): RevisionTotals | null {
   const parsed = RevisionTotals.safeParse(revision.totals);
   return parsed.success ? parsed.data : null;
 }
 
-export function presentRevisionSummary(revision: QuoteRevision): RevisionSummary {
+/** What a revision summary reads: never the estimate document (see listRevisionSummaries). */
+type RevisionSummarySource = Pick<QuoteRevision, 'id' | 'number' | 'state' | 'totals' | 'createdAt' | 'updatedAt' | 'sentAt'>;
+
+export function presentRevisionSummary(revision: RevisionSummarySource): RevisionSummary {
   return {
     id: revision.id,
     number: revision.number,

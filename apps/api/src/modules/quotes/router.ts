@@ -17,7 +17,7 @@ import {
   createQuote,
   currentRevision,
   listQuoteEvents,
-  listRevisions,
+  listRevisionSummaries,
   loadQuoteForFirm,
   loadRevision,
   reviseQuote,
@@ -37,7 +37,9 @@ export const quoteBodyParser = express.json({ limit: QUOTE_BODY_LIMIT });
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 async function detail(em: EntityManager, quote: Quote): Promise<QuoteDetailResponse> {
-  const [revision, revisions] = await Promise.all([currentRevision(em, quote), listRevisions(em, quote)]);
+  // the current revision whole first, then the list without documents (see listRevisionSummaries)
+  const revision = await currentRevision(em, quote);
+  const revisions = await listRevisionSummaries(em, quote);
   return {
     quote: presentQuoteSummary(quote),
     revision: presentRevision(revision),

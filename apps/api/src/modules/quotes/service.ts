@@ -4,8 +4,10 @@
  *
  * Exported API:
  * - loadQuoteForFirm(em, organizationId, id)     the quote with customer, site and estimator, or 404
+ * - loadQuoteWithFirm(em, organizationId, id)    the quote with only its firm, or 404 (lighter)
  * - currentRevision(em, quote)                   the newest revision (there is always one)
  * - loadRevision(em, quote, number)              one revision by number, or 404
+ * - listRevisionSummaries(em, quote)             every revision, newest first, without its document
  * - revisionContent(revision) / revisionSettings(revision)   the JSON parsed with the contracts
  * - priceRevision(content, settings)             the engine's totals for a document
  * - appendQuoteEvent(em, quote, type, actor, data?, revision?)  history + status (persisted, not flushed)
@@ -49,6 +51,16 @@ export async function loadQuoteForFirm(em: EntityManager, organizationId: string
   return quote;
 }
 
+/**
+ * The quote with only its firm loaded, or 404: for routes that never show the customer, site
+ * or estimator (each populated relation costs a hydrated entity on every request).
+ */
+export async function loadQuoteWithFirm(em: EntityManager, organizationId: string, id: string): Promise<Quote> {
+  const quote = await em.findOne(Quote, { id, organization: organizationId }, { populate: ['organization'] });
+  if (!quote) throw notFound('That quote');
+  return quote;
+}
+
 /** The newest revision of a quote. */
 export async function currentRevision(em: EntityManager, quote: Quote): Promise<QuoteRevision> {
   const revision = await em.findOne(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
@@ -64,6 +76,15 @@ export async function loadRevision(em: EntityManager, quote: Quote, number: numb
 
 export async function listRevisions(em: EntityManager, quote: Quote): Promise<QuoteRevision[]> {
   return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
+}
+
+/**
+ * The quote's revisions for a list of summaries: their estimate documents and settings (the
+ * bulk of a revision row) are left unloaded. Load a revision whole before this in the same
+ * entity manager if it is needed whole (it then stays whole).
+ */
+export async function listRevisionSummaries(em: EntityManager, quote: Quote) {
+  return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' }, exclude: ['content', 'settings'] });
 }
 
 /** The stored estimate document; stored JSON that no longer parses is a server fault, said plainly. */
