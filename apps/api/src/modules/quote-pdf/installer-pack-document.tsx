@@ -382,7 +382,7 @@ function RunDiagram({ d }: { d: PackPdfRunDiagram }) {
 
 function CircuitSection({ c, index }: { c: PackPdfCircuit; index: number }) {
   return (
-    <View break={index > 0}>
+    <View>
       <Text style={s.h2}>{`Circuit ${index + 1}. ${c.title}`}</Text>
       <Text style={s.muted}>{`${c.kind} · ${c.power} · ${c.summary}`}</Text>
       {c.diagram && <Diagram d={c.diagram} />}
@@ -505,14 +505,12 @@ export function InstallerPackDocument({ model }: { model: InstallerPackPdfModel 
         {model.circuits.length === 0 && <Text style={s.muted}>This job has no circuits designed yet.</Text>}
         <Footer reference={model.reference} />
       </Page>
-      {model.circuits.length > 0 && (
-        <Page size="A4" style={s.page}>
-          {model.circuits.map((c, i) => (
-            <CircuitSection key={i} c={c} index={i} />
-          ))}
+      {model.circuits.map((c, i) => (
+        <Page key={i} size="A4" style={s.page}>
+          <CircuitSection c={c} index={i} />
           <Footer reference={model.reference} />
         </Page>
-      )}
+      ))}
     </Document>
   );
 }
