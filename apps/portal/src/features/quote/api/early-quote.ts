@@ -8,11 +8,12 @@ import { fetchQuote } from './fetch-quote';
  */
 let early: { token: string; answer: Promise<PortalQuoteView> } | null = null;
 
-export function startQuoteFetch(token: string): void {
+/** Starts the GET; the promise settles (never rejects) with the quote, or undefined when it failed. */
+export function startQuoteFetch(token: string): Promise<PortalQuoteView | undefined> {
   const answer = fetchQuote(token);
-  // Its failure is reported where the query takes it; no unhandled rejection before then.
-  answer.catch(() => undefined);
   early = { token, answer };
+  // A failure is reported where the query takes the answer, not here.
+  return answer.catch(() => undefined);
 }
 
 export function takeEarlyQuote(token: string): Promise<PortalQuoteView> | undefined {

@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { PortalQuoteView, PortalSelection, PortalTotals } from '@gloaming/contracts';
 import { Card } from '../../../components/ui/card';
+import { PageShell } from '../../../components/ui/page-shell';
 import { formatters, type Formatters } from '../../../components/ui/format';
 import { useQuote } from '../api/get-quote';
 import { usePriceChoice } from '../api/price-choice';
@@ -17,12 +18,7 @@ import { DepositPanel } from '../../deposit/deposit-panel';
 /** /portal/q/<token>: the quote the link opens, or what went wrong with the link. */
 export function QuotePage({ token }: { token: string }) {
   const quote = useQuote(token);
-  if (quote.isPending)
-    return (
-      <p role="status" className="p-6 text-ink-muted">
-        Opening your quote…
-      </p>
-    );
+  if (quote.isPending) return <PageShell status="Opening your quote…" />;
   if (quote.isError) return <LinkProblemPage error={quote.error} />;
   return <QuoteView key={quote.data.state} token={token} quote={quote.data} />;
 }
