@@ -8,10 +8,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import type { EstimateContent, EstimateLine } from '@gloaming/contracts';
+import type { EstimateContent } from '@gloaming/contracts';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import { seriousViolations } from '../support/axe';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
+import { createQuoteThroughApi, estimateLine, portalLinkIn, waitForMail } from '../support/quote-fixtures';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
 let server: RunningServer;
@@ -28,32 +29,7 @@ afterAll(async () => {
 const estimator = DEMO_ACCOUNTS.find((a) => a.role === 'estimator')!;
 const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 
-const line = (
-  id: string,
-  description: string,
-  quantityMilli: number,
-  unitPriceMinor: number,
-  extra: Partial<EstimateLine> = {},
-): EstimateLine => ({
-  id,
-  productId: null,
-  description,
-  quantityMilli,
-  unit: 'each',
-  unitCostMinor: 1111,
-  pricingMode: 'fixed',
-  pricingBp: 0,
-  unitPriceMinor,
-  vatRateBp: 2000,
-  discount: null,
-  optional: false,
-  alternativeGroup: null,
-  selected: true,
-  note: '',
-  circuitId: null,
-  overridden: false,
-  ...extra,
-});
+const line = estimateLine;
 
 /**
  * Worked by hand: 4 x £80.00 + 20 m x £2.50 = £370.00 net; with the optional £100.00 uplighter
@@ -78,21 +54,7 @@ const content: EstimateContent = {
 };
 const DEPOSIT_TEXT = '£141.00';
 
-type Caught = { to: string[]; subject: string; text: string };
-async function mailTo(address: string, subject: RegExp): Promise<Caught> {
-  let found: Caught | undefined;
-  await expect
-    .poll(
-      async () => {
-        const { messages } = (await (await fetch(`${server.inboxUrl}/messages`)).json()) as { messages: Caught[] };
-        found = messages.find((m) => m.to.includes(address) && subject.test(m.subject));
-        return Boolean(found);
-      },
-      { timeout: 20_000 },
-    )
-    .toBe(true);
-  return found!;
-}
+const mailTo = (address: string, subject: RegExp) => waitForMail(server.inboxUrl, (m) => m.to.includes(address) && subject.test(m.subject));
 
 /** Failed responses from our own origin (the fake's hosted page answers 402 to a declined card, as the provider's does, and has no favicon). */
 function ourFailures(page: Page): string[] {
@@ -115,28 +77,12 @@ async function signIn(page: Page, who: { email: string; password: string }) {
 
 /** A customer and the estimate through the api, then sent from the quote page; returns the portal link. */
 async function sendQuote(page: Page, customer: { name: string; email: string }): Promise<{ quoteId: string; link: string }> {
-  const quoteId = await page.evaluate(
-    async ({ customer, content }) => {
-      const call = (path: string, body: unknown, method = 'POST') =>
-        fetch(path, { method, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(body) }).then(async (r) => {
-          if (!r.ok) throw new Error(`${method} ${path}: ${r.status} ${await r.text()}`);
-          return r.json();
-        });
-      const c = await call('/api/customers', {
-        ...customer,
-        sites: [{ label: 'Home', addressLines: '9 Rowan Walk\nHollin', postcode: 'HL3 9RW' }],
-      });
-      const q = await call('/api/quotes', {
-        customerId: c.customer.id,
-        siteId: c.customer.sites[0].id,
-        title: 'Side path lighting',
-      });
-      const detail = await fetch(`/api/quotes/${q.quote.id}`).then((r) => r.json());
-      await call(`/api/quotes/${q.quote.id}/revisions/1`, { version: detail.revision.version, content }, 'PUT');
-      return q.quote.id as string;
-    },
-    { customer, content },
-  );
+  const quoteId = await createQuoteThroughApi(page, {
+    customer,
+    site: { label: 'Home', addressLines: '9 Rowan Walk\nHollin', postcode: 'HL3 9RW' },
+    title: 'Side path lighting',
+    content,
+  });
   await page.goto(`${server.baseUrl}/quotes/${quoteId}`);
   await page.getByRole('grid', { name: 'Estimate lines' }).waitFor();
   await page.getByRole('button', { name: 'Send…' }).click();
@@ -144,9 +90,9 @@ async function sendQuote(page: Page, customer: { name: string; email: string }):
   await dialog.getByRole('button', { name: 'Send quote' }).click();
   await page.getByText(`Sent to ${customer.email}.`).waitFor();
   const mail = await mailTo(customer.email, /Q-\d{4}/);
-  const link = new RegExp(`${server.baseUrl.replace(/[.:/]/g, '\\$&')}/portal/q/[A-Za-z0-9_-]{43}`).exec(mail.text);
+  const link = portalLinkIn(mail.text, server.baseUrl);
   expect(link).not.toBeNull();
-  return { quoteId, link: link![0] };
+  return { quoteId, link: link! };
 }
 
 async function statusInWorkbench(page: Page, quoteId: string): Promise<string> {

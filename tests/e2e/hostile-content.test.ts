@@ -13,6 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
+import { waitForMail, type CaughtMail } from '../support/quote-fixtures';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
 let server: RunningServer;
@@ -74,21 +75,7 @@ async function pdfText(bytes: Buffer): Promise<string> {
   }
 }
 
-type Caught = { to: string[]; subject: string; text: string; html: string };
-async function caught(predicate: (m: Caught) => boolean): Promise<Caught> {
-  let found: Caught | undefined;
-  await expect
-    .poll(
-      async () => {
-        const { messages } = (await (await fetch(`${server.inboxUrl}/messages`)).json()) as { messages: Caught[] };
-        found = messages.find(predicate);
-        return Boolean(found);
-      },
-      { timeout: 20_000 },
-    )
-    .toBe(true);
-  return found!;
-}
+const caught = (match: (m: CaughtMail) => boolean) => waitForMail(server.inboxUrl, match);
 
 describe('hostile content and the content security policy', () => {
   it('shows every saved payload as text everywhere, and no built page breaks the CSP', async () => {

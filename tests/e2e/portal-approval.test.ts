@@ -11,6 +11,7 @@ import { DEMO_ACCOUNTS } from '@gloaming/db';
 import type { BrowserContext, Page } from 'playwright-core';
 import { seriousViolations } from '../support/axe';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
+import { createQuoteThroughApi, estimateLine, waitForMail as waitForMailIn, type CaughtMail } from '../support/quote-fixtures';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
 let server: RunningServer;
@@ -27,32 +28,8 @@ afterAll(async () => {
 
 const estimator = DEMO_ACCOUNTS.find((a) => a.role === 'estimator')!;
 
-const line = (
-  id: string,
-  description: string,
-  quantityMilli: number,
-  unitPriceMinor: number,
-  extra: Partial<EstimateLine> = {},
-): EstimateLine => ({
-  id,
-  productId: null,
-  description,
-  quantityMilli,
-  unit: 'each',
-  unitCostMinor: 1313,
-  pricingMode: 'fixed',
-  pricingBp: 0,
-  unitPriceMinor,
-  vatRateBp: 2000,
-  discount: null,
-  optional: false,
-  alternativeGroup: null,
-  selected: true,
-  note: '',
-  circuitId: null,
-  overridden: false,
-  ...extra,
-});
+const line = (id: string, description: string, quantityMilli: number, unitPriceMinor: number, extra: Partial<EstimateLine> = {}) =>
+  estimateLine(id, description, quantityMilli, unitPriceMinor, { unitCostMinor: 1313, ...extra });
 
 const content: EstimateContent = {
   introduction: 'Low, warm light along the drive and a glow on the old pear tree.',
@@ -82,47 +59,17 @@ const SUGGESTED_TOTAL = '£564.96';
 const UPGRADED_TOTAL = '£706.56';
 const UPGRADED_DEPOSIT = '£176.64';
 
-interface Caught {
-  to: string[];
-  subject: string;
-  text: string;
-}
-async function waitForMail(match: (m: Caught) => boolean): Promise<Caught> {
-  const deadline = Date.now() + 15_000;
-  for (;;) {
-    const { messages } = (await (await fetch(`${server.inboxUrl}/messages`)).json()) as { messages: Caught[] };
-    const found = messages.find(match);
-    if (found) return found;
-    if (Date.now() > deadline) throw new Error(`no matching e-mail; have: ${messages.map((m) => m.subject).join(' | ')}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
+const waitForMail = (match: (m: CaughtMail) => boolean) => waitForMailIn(server.inboxUrl, match, 15_000);
 
 /** Signed in as the demo estimator: create a customer and quote through the api and send it. */
 async function sendQuote(staff: Page, customer: { name: string; email: string }): Promise<{ quoteId: string; link: string }> {
-  const quoteId = await staff.evaluate(
-    async ({ customer, content }) => {
-      const call = (path: string, body: unknown, method = 'POST') =>
-        fetch(path, { method, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(body) }).then(async (r) => {
-          if (!r.ok) throw new Error(`${method} ${path}: ${r.status} ${await r.text()}`);
-          return r.json();
-        });
-      const c = await call('/api/customers', {
-        ...customer,
-        sites: [{ label: 'Home', addressLines: '9 Wren Lane\nAshby Parva', postcode: 'AP4 9WL' }],
-      });
-      const q = await call('/api/quotes', {
-        customerId: c.customer.id,
-        siteId: c.customer.sites[0].id,
-        title: 'Driveway lighting',
-      });
-      const detail = await fetch(`/api/quotes/${q.quote.id}`).then((r) => r.json());
-      await call(`/api/quotes/${q.quote.id}/revisions/1`, { version: detail.revision.version, content }, 'PUT');
-      await call(`/api/quotes/${q.quote.id}/revisions/${detail.revision.id}/send`, {});
-      return q.quote.id as string;
-    },
-    { customer, content },
-  );
+  const quoteId = await createQuoteThroughApi(staff, {
+    customer,
+    site: { label: 'Home', addressLines: '9 Wren Lane\nAshby Parva', postcode: 'AP4 9WL' },
+    title: 'Driveway lighting',
+    content,
+    send: true,
+  });
   const mail = await waitForMail((m) => m.to.includes(customer.email) && m.subject.includes('quotation'));
   const link = /http:\/\/127\.0\.0\.1:\d+\/portal\/q\/[A-Za-z0-9_-]+/.exec(mail.text)?.[0];
   if (!link) throw new Error(`no portal link in: ${mail.text}`);

@@ -8,11 +8,12 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { QuoteDetailResponse, estimateQuoteInput, type EstimateContent, type EstimateLine } from '@gloaming/contracts';
+import { QuoteDetailResponse, estimateQuoteInput, type EstimateContent } from '@gloaming/contracts';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import { computeQuoteTotals, formatMoney } from '@gloaming/engine';
 import { ARTIFACTS_DIR, launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { startBuiltServer, type RunningServer } from '../support/server';
+import { estimateLine, portalLinkIn, waitForMail } from '../support/quote-fixtures';
 
 let server: RunningServer;
 let browser: BrowserSession;
@@ -30,32 +31,7 @@ const estimator = DEMO_ACCOUNTS.find((a) => a.role === 'estimator')!;
 const PHOTO = resolve(dirname(fileURLToPath(import.meta.url)), '../fixtures/front-path-dusk.jpg');
 const CUSTOMER = { name: 'Ottilie Brackenbury', email: 'ottilie@brackenbury.example' };
 
-const line = (
-  id: string,
-  description: string,
-  quantityMilli: number,
-  unitPriceMinor: number,
-  extra: Partial<EstimateLine> = {},
-): EstimateLine => ({
-  id,
-  productId: null,
-  description,
-  quantityMilli,
-  unit: 'each',
-  unitCostMinor: 1111,
-  pricingMode: 'fixed',
-  pricingBp: 0,
-  unitPriceMinor,
-  vatRateBp: 2000,
-  discount: null,
-  optional: false,
-  alternativeGroup: null,
-  selected: true,
-  note: '',
-  circuitId: null,
-  overridden: false,
-  ...extra,
-});
+const line = estimateLine;
 
 const content: EstimateContent = {
   introduction: 'Soft light along the front path and a glow on the old pear tree.',
@@ -171,26 +147,13 @@ describe('quote photos, PDF and sending', () => {
     await page.screenshot({ path: screenshotPath('quote-send-sent') });
 
     // The e-mail in the catcher, with the PDF and a link that opens the portal.
-    type Caught = {
-      to: string[];
-      subject: string;
-      text: string;
-      attachments: { filename: string; contentType: string; size: number }[];
-    };
-    let mail: Caught | undefined;
-    await expect
-      .poll(async () => {
-        const { messages } = (await (await fetch(`${server.inboxUrl}/messages`)).json()) as { messages: Caught[] };
-        mail = messages.find((m) => m.to.includes(CUSTOMER.email));
-        return Boolean(mail);
-      })
-      .toBe(true);
-    expect(mail!.text).toContain(totalText);
-    expect(mail!.text).toContain('Thank you for showing us round on Thursday.');
-    expect(mail!.attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
-    const link = new RegExp(`${server.baseUrl.replace(/[.:/]/g, '\\$&')}/portal/q/([A-Za-z0-9_-]{43})`).exec(mail!.text);
+    const mail = await waitForMail(server.inboxUrl, (m) => m.to.includes(CUSTOMER.email));
+    expect(mail.text).toContain(totalText);
+    expect(mail.text).toContain('Thank you for showing us round on Thursday.');
+    expect(mail.attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
+    const link = portalLinkIn(mail.text, server.baseUrl);
     expect(link).not.toBeNull();
-    const portal = await fetch(link![0]);
+    const portal = await fetch(link!);
     expect(portal.status).toBe(200);
     // the one 401 is the signed-out session check on the sign-in page
     expect(problems.filter((p) => !/status of 401/.test(p))).toEqual([]);
