@@ -1,8 +1,8 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PortalQuestionResponse, PortalQuoteView } from '@gloaming/contracts';
+import type { PortalQuestionResponse } from '@gloaming/contracts';
 import { answerWith, apiRequest } from '../../../lib/http-client';
+import { useApiAction } from '../../../lib/use-api-action';
+import { useQuoteUpdate } from '../quote-update';
 import { portalPath } from './fetch-quote';
-import { quoteKeys } from './quote-keys';
 
 export const askQuestion = (token: string, body: string) =>
   apiRequest(`${portalPath(token)}/questions`, {
@@ -12,10 +12,9 @@ export const askQuestion = (token: string, body: string) =>
   });
 
 export function useAskQuestion(token: string) {
-  const client = useQueryClient();
-  return useMutation({
-    mutationFn: (body: string) => askQuestion(token, body),
-    onSuccess: ({ message }) =>
-      client.setQueryData<PortalQuoteView>(quoteKeys.view(token), (q) => (q ? { ...q, messages: [...q.messages, message] } : q)),
-  });
+  const update = useQuoteUpdate();
+  return useApiAction(
+    (body: string) => askQuestion(token, body),
+    ({ message }) => update((q) => ({ ...q, messages: [...q.messages, message] })),
+  );
 }

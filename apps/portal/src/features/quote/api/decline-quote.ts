@@ -1,17 +1,16 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PortalDeclineResponse, PortalDeclineRequest, PortalQuoteView } from '@gloaming/contracts';
+import type { PortalDeclineResponse, PortalDeclineRequest } from '@gloaming/contracts';
 import { answerWith, apiRequest } from '../../../lib/http-client';
+import { useApiAction } from '../../../lib/use-api-action';
+import { useQuoteUpdate } from '../quote-update';
 import { portalPath } from './fetch-quote';
-import { quoteKeys } from './quote-keys';
 
 export const declineQuote = (token: string, body: PortalDeclineRequest) =>
   apiRequest(`${portalPath(token)}/decline`, { method: 'POST', body, schema: answerWith<PortalDeclineResponse>('declined') });
 
 export function useDeclineQuote(token: string) {
-  const client = useQueryClient();
-  return useMutation({
-    mutationFn: (body: PortalDeclineRequest) => declineQuote(token, body),
-    onSuccess: ({ declined }) =>
-      client.setQueryData<PortalQuoteView>(quoteKeys.view(token), (q) => (q ? { ...q, state: 'declined', declined } : q)),
-  });
+  const update = useQuoteUpdate();
+  return useApiAction(
+    (body: PortalDeclineRequest) => declineQuote(token, body),
+    ({ declined }) => update((q) => ({ ...q, state: 'declined', declined })),
+  );
 }

@@ -1,6 +1,6 @@
-import { useMutation } from '@tanstack/react-query';
 import type { PortalTotalsResponse, PortalSelection } from '@gloaming/contracts';
 import { answerWith, apiRequest } from '../../../lib/http-client';
+import { useApiAction } from '../../../lib/use-api-action';
 import { portalPath } from './fetch-quote';
 
 /** The server's totals for a choice: the figures that count. */
@@ -11,5 +11,4 @@ export const priceChoice = (token: string, selection: PortalSelection) =>
     schema: answerWith<PortalTotalsResponse>('totals'),
   });
 
-export const usePriceChoice = (token: string) =>
-  useMutation({ mutationFn: (selection: PortalSelection) => priceChoice(token, selection) });
+export const usePriceChoice = (token: string) => useApiAction((selection: PortalSelection) => priceChoice(token, selection));

@@ -24,7 +24,7 @@ export function ApproveForm({ token, selection, total }: { token: string; select
     };
     setLocal(next);
     if (next.name || next.terms) return;
-    approve.mutate({ selection, signedName: name, termsAccepted: true });
+    approve.run({ selection, signedName: name, termsAccepted: true });
   }
 
   return (

@@ -13,7 +13,7 @@ export function DeclineForm({ token }: { token: string }) {
 
   function submit(e: FormEvent) {
     e.preventDefault();
-    decline.mutate(reason.trim() ? { reason } : {});
+    decline.run(reason.trim() ? { reason } : {});
   }
 
   if (!open)

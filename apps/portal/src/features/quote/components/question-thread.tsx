@@ -17,11 +17,9 @@ export function QuestionThread({ token, quote, f }: { token: string; quote: Port
   function submit(e: FormEvent) {
     e.preventDefault();
     setSent(false);
-    ask.mutate(body, {
-      onSuccess: () => {
-        setBody('');
-        setSent(true);
-      },
+    ask.run(body, () => {
+      setBody('');
+      setSent(true);
     });
   }
 

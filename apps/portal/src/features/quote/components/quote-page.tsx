@@ -3,9 +3,10 @@ import type { PortalQuoteView, PortalSelection, PortalTotals } from '@gloaming/c
 import { Card } from '../../../components/ui/card';
 import { PageShell } from '../../../components/ui/page-shell';
 import { formatters, type Formatters } from '../../../components/ui/format';
-import { useQuote } from '../api/get-quote';
+import { useQuote } from '../api/use-quote';
 import { usePriceChoice } from '../api/price-choice';
 import { choose, localTotals, sameSelection } from '../choice';
+import { QuoteUpdateContext } from '../quote-update';
 import { ApproveForm } from './approve-form';
 import { DeclineForm } from './decline-form';
 import { FirmContact } from './firm-contact';
@@ -15,18 +16,22 @@ import { QuoteSections } from './quote-sections';
 import { QuoteTotals } from './quote-totals';
 import { DepositPanel } from '../../deposit/deposit-panel';
 
-/** /portal/q/<token>: the quote the link opens, or what went wrong with the link. */
-export function QuotePage({ token }: { token: string }) {
-  const quote = useQuote(token);
-  if (quote.isPending) return <PageShell status="Opening your quote…" />;
-  if (quote.isError) return <LinkProblemPage error={quote.error} />;
-  return <QuoteView key={quote.data.state} token={token} quote={quote.data} />;
+/** /portal/q/<token>: the quote the link opens (`initial` when it has already arrived), or what went wrong with the link. */
+export function QuotePage({ token, initial }: { token: string; initial?: PortalQuoteView | undefined }) {
+  const { load, update } = useQuote(token, initial);
+  if (load.status === 'pending') return <PageShell status="Opening your quote…" />;
+  if (load.status === 'error') return <LinkProblemPage error={load.error} />;
+  return (
+    <QuoteUpdateContext value={update}>
+      <QuoteView key={load.quote.state} token={token} quote={load.quote} />
+    </QuoteUpdateContext>
+  );
 }
 
 /** Totals follow each choice at once (worked out here); the server's figures replace them when they arrive. */
 function useChoiceTotals(token: string, quote: PortalQuoteView, selection: PortalSelection) {
   const price = usePriceChoice(token);
-  const { mutate } = price;
+  const { run } = price;
   const [confirmed, setConfirmed] = useState<{ selection: PortalSelection; totals: PortalTotals }>({
     selection: quote.selection,
     totals: quote.totals,
@@ -35,8 +40,8 @@ function useChoiceTotals(token: string, quote: PortalQuoteView, selection: Porta
   const changed = !sameSelection(confirmed.selection, selection);
   useEffect(() => {
     if (!changed || quote.state !== 'open') return;
-    mutate(selection, { onSuccess: (answer) => setConfirmed({ selection: answer.selection, totals: answer.totals }) });
-  }, [changed, mutate, quote.state, selection]);
+    run(selection, (answer) => setConfirmed({ selection: answer.selection, totals: answer.totals }));
+  }, [changed, run, quote.state, selection]);
   const totals = changed ? local : confirmed.totals;
   const status = price.isError
     ? 'These totals could not be confirmed just now; they will be checked again when you approve.'
