@@ -15,7 +15,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
-import type { Page } from 'playwright-core';
+import type { Locator, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { startBuiltServer, type RunningServer } from '../support/server';
 
@@ -170,12 +170,22 @@ async function newCircuit(
   return editor;
 }
 
+/** The element's box once two readings 150 ms apart agree (it has stopped moving). */
+async function settledBox(target: Locator): Promise<{ x: number; y: number; width: number; height: number }> {
+  let last = JSON.stringify(await target.boundingBox());
+  for (let i = 0; i < 40; i++) {
+    await new Promise((r) => setTimeout(r, 150));
+    const now = JSON.stringify(await target.boundingBox());
+    if (now === last && now !== 'null') return JSON.parse(now) as { x: number; y: number; width: number; height: number };
+    last = now;
+  }
+  throw new Error('the element kept moving for 6 s');
+}
+
 describe('circuit designer: constant voltage, split, blocks, drag, currents, sending', () => {
-  // One retry: on a busy machine the pointer drag below can start before the row has settled
-  // after the location change (seen once in a clean-clone run; it passes alone and in other runs).
   it(
     'edits a 12 V daisy chain, sees each fitting’s voltage and takes the larger cable in one action',
-    { retry: 1, timeout: 120_000 },
+    { timeout: 120_000 },
     async () => {
       const { page, problems } = await browser.newPage({ width: 1600, height: 1000 });
       await signIn(page);
@@ -225,9 +235,13 @@ describe('circuit designer: constant voltage, split, blocks, drag, currents, sen
 
       // Reorder the run: drag fitting 1 (marked by its location) below fitting 2, then Alt+Up brings it back.
       await boards.getByLabel('Location').nth(0).selectOption('under-decking');
+      // the change re-checks the run and can re-lay the rows (findings come and go): measure
+      // where the handle and the target row are only once they have stopped moving, with the
+      // rows mid-screen (near an edge the drag scrolls the page and overshoots the target)
       const handle = boards.getByRole('button', { name: 'Drag fitting 1 of run Boards to reorder' });
-      const from = (await handle.boundingBox())!;
-      const to = (await boards.locator('[data-cv-row]').nth(1).boundingBox())!;
+      await handle.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+      const from = await settledBox(handle);
+      const to = await settledBox(boards.locator('[data-cv-row]').nth(1));
       await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
       await page.mouse.down();
       for (let s = 1; s <= 10; s++)
