@@ -2,7 +2,7 @@ import type { EstimateContent, EstimateLine, Product, RevisionSettings } from '@
 import { formatBasisPoints, formatMoney, formatQuantityMilli, priceFromMarkup } from '@gloaming/engine';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { memo, useCallback, useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
+import { memo, useCallback, useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent, type MouseEvent, type ReactNode } from 'react';
 import { cellText, newLine, pricingText, writeCell } from '../grid/cell-codec';
 import { isDerivedLine, type GridRow } from '../grid/estimate-rows';
 import {
@@ -13,6 +13,7 @@ import {
   columnIndex,
   isNumericColumn,
   isReadOnlyColumn,
+  STICKY_COLUMN_COUNT,
   scrollLeftToShow,
   stickyLeft,
   type ColumnId,
@@ -96,7 +97,7 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
   const [picker, setPicker] = useState<{ row: number; search: string } | null>(null);
   const table = useReactTable({ data: rows as GridRow[], columns: TABLE_COLUMNS, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.key });
   const tableRows = table.getRowModel().rows;
-  const virtualizer = useVirtualizer({ count: tableRows.length, getScrollElement: () => gridRef.current, estimateSize: () => ROW_HEIGHT, overscan: 12 });
+  const virtualizer = useVirtualizer({ count: tableRows.length, getScrollElement: () => gridRef.current, estimateSize: () => ROW_HEIGHT, overscan: 6 });
   const range = rangeOf(selection);
   const focusRow = selection.focus.row;
 
@@ -306,19 +307,23 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
     report(r.problems, `${block.length} row${block.length === 1 ? '' : 's'} pasted.`);
   };
 
-  // The draft through a ref, so this handler (given to every row) does not change per keystroke.
-  const draftRef = useRef(draft);
-  useEffect(() => {
-    draftRef.current = draft;
-  });
-  const onCellMouseDown = useCallback(
-    (row: number, col: number, shift: boolean) => {
-      if (draftRef.current) commitDraft(draftRef.current, null);
-      select(shift ? { anchor: selection.anchor, focus: { row, col } } : cellSelection({ row, col }));
-      focusGrid();
-    },
-    [commitDraft, select, selection.anchor, focusGrid],
-  );
+  /**
+   * One mouse-down handler for every cell of the grid (rather than one per cell): the row and
+   * column come from the cell's aria-rowindex / aria-colindex. A section row has one cell
+   * across the grid; clicking it keeps the column the row already had, or the description.
+   */
+  const onMouseDown = (e: MouseEvent<HTMLDivElement>) => {
+    const cell = e.target instanceof Element ? e.target.closest('[role="gridcell"]') : null;
+    const rowElement = cell?.closest('[role="row"]');
+    if (!cell || !rowElement) return;
+    const row = Number(rowElement.getAttribute('aria-rowindex')) - 2;
+    const gridRow = rows[row];
+    if (!gridRow) return;
+    const col = gridRow.kind === 'section' ? (selection.focus.row === row ? selection.focus.col : 1) : Number(cell.getAttribute('aria-colindex')) - 1;
+    if (draft) commitDraft(draft, null);
+    select(e.shiftKey ? { anchor: selection.anchor, focus: { row, col } } : cellSelection({ row, col }));
+    focusGrid();
+  };
 
   const virtualItems = virtualizer.getVirtualItems();
   const active = rows[selection.focus.row];
@@ -340,6 +345,7 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
         aria-describedby="grid-keys"
         tabIndex={0}
         onKeyDown={onKeyDown}
+        onMouseDown={onMouseDown}
         onCopy={(e) => onCopy(e)}
         onCut={(e) => onCopy(e, true)}
         onPaste={onPaste}
@@ -380,7 +386,6 @@ export function EstimateGrid({ editor, settings, lineTotals, readOnly, draft, on
                   onDraftChange={onDraftChange}
                   onCommit={commitDraft}
                   onCancel={cancelDraft}
-                  onCellMouseDown={onCellMouseDown}
                   rows={rows.length}
                 />
               );
@@ -424,13 +429,16 @@ interface RowViewProps {
   onDraftChange: (d: CellDraft | null) => void;
   onCommit: (d: CellDraft, next: Selection | null) => void;
   onCancel: () => void;
-  onCellMouseDown: (row: number, col: number, shift: boolean) => void;
 }
 
-/** Position and stacking of a cell: sticky ones above the cells scrolling under them, the focused one above its row. */
-function cellLayer(sticky: boolean, focused: boolean): string {
-  if (sticky) return focused ? 'sticky z-[12]' : 'sticky z-[11]';
-  return focused ? 'relative z-10' : 'relative';
+/**
+ * Position and stacking of a line's cell. Only the focused cell (above its neighbours) and the
+ * one holding the editor input are positioned: every positioned cell is a paint layer of its
+ * own, and a screenful of rows has hundreds of cells.
+ */
+function cellLayer(frozen: boolean, focused: boolean, editing: boolean): string {
+  if (focused && !frozen) return 'relative z-10';
+  return focused || editing ? 'relative' : '';
 }
 
 function display(line: EstimateLine, id: ColumnId, lineTotal: number | undefined, currency: string, locale: string): string {
@@ -469,7 +477,6 @@ const GridRowView = memo(function GridRowView({
   onDraftChange,
   onCommit,
   onCancel,
-  onCellMouseDown,
 }: RowViewProps) {
   const style = { transform: `translateY(${top}px)`, height: ROW_HEIGHT };
   const editorFor = (col: number) =>
@@ -507,7 +514,6 @@ const GridRowView = memo(function GridRowView({
           aria-colindex={1}
           aria-colspan={COLUMN_COUNT}
           aria-selected={selected}
-          onMouseDown={(e) => onCellMouseDown(index, focusCol >= 0 ? focusCol : 1, e.shiftKey)}
           className={`relative flex flex-1 items-center px-2 text-body font-semibold text-dusk-800 ${selected ? 'bg-dusk-100' : ''} ${focusCol >= 0 ? 'shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''}`}
         >
           {draft ? (
@@ -525,6 +531,33 @@ const GridRowView = memo(function GridRowView({
   }
   const derived = isDerivedLine(row.line);
   const excluded = (row.line.optional || row.line.alternativeGroup) && !row.line.selected;
+  const cells = GRID_COLUMNS.map((c, col) => {
+    const selected = col >= selLeft && col <= selRight;
+    const focused = focusCol === col;
+    const numeric = isNumericColumn(c);
+    const editing = draft !== null && draft.col === col;
+    const frozen = col < STICKY_COLUMN_COUNT;
+    const badge = editing ? null : cellBadge(row.line, c.id, derived);
+    // Plain text sits in the cell itself, truncated, on a line as tall as the row's content
+    // (34 px less its 1 px bottom border); a badge keeps its own box, centred.
+    const layout = badge || editing ? 'flex items-center' : `truncate leading-[33px] ${numeric ? 'text-right' : ''}`;
+    return (
+      <div
+        key={c.id}
+        role="gridcell"
+        aria-colindex={col + 1}
+        aria-selected={selected}
+        aria-readonly={derived || isReadOnlyColumn(c) || undefined}
+        data-col={c.id}
+        style={{ width: c.width }}
+        className={`shrink-0 border-r border-line/70 px-2 ${layout} ${cellLayer(frozen, focused, editing)} ${numeric ? 'justify-end font-mono tabular-nums' : ''} ${
+          selected ? 'bg-lamp-50' : ''
+        } ${focused ? 'shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''} ${c.id === 'lineTotal' ? 'font-semibold text-ink' : ''}`}
+      >
+        {editing ? editorFor(col) : (badge ?? display(row.line, c.id, lineTotal, currency, locale))}
+      </div>
+    );
+  });
   return (
     <div
       role="row"
@@ -532,57 +565,39 @@ const GridRowView = memo(function GridRowView({
       style={style}
       className={`absolute inset-x-0 top-0 flex border-b border-line ${derived ? 'bg-mist-50 text-ink-muted' : 'bg-surface'} ${excluded ? 'text-mist-500' : ''}`}
     >
-      <div className={`${STICKY} left-0 flex shrink-0 items-center justify-end pr-1.5 font-mono text-micro text-mist-400`} style={{ width: GUTTER_WIDTH }} aria-hidden="true">
-        {derived ? (
-          <span title="Derived from a circuit: read-only" className="text-lamp-600">
-            ⌁
-          </span>
-        ) : (
-          index
-        )}
+      {/* The gutter, product and description stay in view when the grid scrolls sideways: one sticky box per row. */}
+      <div className="sticky left-0 z-[11] flex shrink-0 bg-inherit">
+        <div className="flex shrink-0 items-center justify-end pr-1.5 font-mono text-micro text-mist-400" style={{ width: GUTTER_WIDTH }} aria-hidden="true">
+          {derived ? (
+            <span title="Derived from a circuit: read-only" className="text-lamp-600">
+              ⌁
+            </span>
+          ) : (
+            index
+          )}
+        </div>
+        {cells.slice(0, STICKY_COLUMN_COUNT)}
       </div>
-      {GRID_COLUMNS.map((c, col) => {
-        const selected = col >= selLeft && col <= selRight;
-        const focused = focusCol === col;
-        const numeric = isNumericColumn(c);
-        const editing = draft && draft.col === col;
-        const left = stickyLeft(col);
-        return (
-          <div
-            key={c.id}
-            role="gridcell"
-            aria-colindex={col + 1}
-            aria-selected={selected}
-            aria-readonly={derived || isReadOnlyColumn(c) || undefined}
-            data-col={c.id}
-            onMouseDown={(e) => onCellMouseDown(index, col, e.shiftKey)}
-            style={{ width: c.width, left: left ?? undefined }}
-            className={`flex shrink-0 items-center border-r border-line/70 px-2 ${cellLayer(left !== null, focused)} ${numeric ? 'justify-end font-mono tabular-nums' : ''} ${
-              selected ? 'bg-lamp-50' : left !== null ? 'bg-inherit' : ''
-            } ${focused ? 'shadow-[inset_0_0_0_2px_var(--color-dusk-600)]' : ''} ${c.id === 'lineTotal' ? 'font-semibold text-ink' : ''}`}
-          >
-            {editing ? (
-              editorFor(col)
-            ) : c.id === 'product' && row.line.productId ? (
-              <span className="truncate rounded-sm bg-dusk-50 px-1 font-mono text-micro text-dusk-700 ring-1 ring-dusk-200">{cellText(row.line, 'product', undefined)}</span>
-            ) : c.id === 'product' && derived ? (
-              <span className="truncate text-micro text-lamp-700">circuit</span>
-            ) : c.id === 'optional' && row.line.optional ? (
-              <span className="rounded-pill bg-lamp-100 px-1.5 text-micro font-semibold text-lamp-800">optional</span>
-            ) : c.id === 'alternativeGroup' && row.line.alternativeGroup ? (
-              <span className={`truncate text-micro ${row.line.selected ? 'font-semibold text-leaf-700' : ''}`}>
-                {row.line.selected ? '● ' : '○ '}
-                {row.line.alternativeGroup}
-              </span>
-            ) : (
-              <span className="truncate">{display(row.line, c.id, lineTotal, currency, locale)}</span>
-            )}
-          </div>
-        );
-      })}
+      {cells.slice(STICKY_COLUMN_COUNT)}
     </div>
   );
 });
+
+/** The cells shown as a small badge rather than plain text; null for plain text. */
+function cellBadge(line: EstimateLine, id: ColumnId, derived: boolean): ReactNode {
+  if (id === 'product' && line.productId)
+    return <span className="truncate rounded-sm bg-dusk-50 px-1 font-mono text-micro text-dusk-700 ring-1 ring-dusk-200">{cellText(line, 'product', undefined)}</span>;
+  if (id === 'product' && derived) return <span className="truncate text-micro text-lamp-700">circuit</span>;
+  if (id === 'optional' && line.optional) return <span className="rounded-pill bg-lamp-100 px-1.5 text-micro font-semibold text-lamp-800">optional</span>;
+  if (id === 'alternativeGroup' && line.alternativeGroup)
+    return (
+      <span className={`truncate text-micro ${line.selected ? 'font-semibold text-leaf-700' : ''}`}>
+        {line.selected ? '● ' : '○ '}
+        {line.alternativeGroup}
+      </span>
+    );
+  return null;
+}
 
 function CellInput({
   draft,
