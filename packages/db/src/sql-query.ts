@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/core';
-import { SqlEntityManager } from '@mikro-orm/knex';
+import { raw, SqlEntityManager } from '@mikro-orm/knex';
 import { PostgreSqlPlatform } from '@mikro-orm/postgresql';
 import type { DatabaseDialect } from './config';
 
@@ -53,12 +53,21 @@ export function dateParam(em: EntityManager, at: Date): number | Date {
   return sqlDialect(em) === 'postgresql' ? at : at.getTime();
 }
 
+const SQL_COLUMN = /^[a-z_][a-z0-9_]*$/;
+
 /**
- * A case-insensitive LIKE condition: SQLite's LIKE already ignores the case of ASCII letters,
- * PostgreSQL's needs ILIKE.
+ * A case-insensitive "contains this text" condition on one text column, the typed text taken
+ * literally: a % or _ in it is escaped, with the escape character named in the SQL (SQLite's
+ * LIKE has none otherwise). LIKE on SQLite (which ignores the case of ASCII letters), ILIKE on
+ * PostgreSQL. Put it where the column's entity is in the filter, e.g.
+ * `{ $or: [containsIgnoringCase(em, 'title', q), { customer: containsIgnoringCase(em, 'name', q) }] }`.
+ * `column` is the SQL column name (snake_case); each call makes a new fragment, use it once.
  */
-export function likeIgnoringCase(em: EntityManager, pattern: string): { $like: string } | { $ilike: string } {
-  return sqlDialect(em) === 'postgresql' ? { $ilike: pattern } : { $like: pattern };
+export function containsIgnoringCase(em: EntityManager, column: string, text: string): Record<string, never[]> {
+  if (!SQL_COLUMN.test(column)) throw new Error(`Not a plain column name: ${column}`);
+  const op = sqlDialect(em) === 'postgresql' ? 'ilike' : 'like';
+  const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return { [raw((alias: string) => `${alias}.${column} ${op} ? escape '\\'`, [pattern])]: [] };
 }
 
 /**

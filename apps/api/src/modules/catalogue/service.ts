@@ -1,8 +1,8 @@
 import type { ProductInputParsed, ProductListQuery } from '@gloaming/contracts';
-import { likeIgnoringCase, Organization, Product, type EntityManager } from '@gloaming/db';
+import { containsIgnoringCase, Organization, Product, type EntityManager } from '@gloaming/db';
 import type { z } from 'zod';
 import { conflict, notFound } from '../../http/problem';
-import { assertVersion, likePattern } from '../customers/service';
+import { assertVersion } from '../customers/service';
 
 type ListQuery = z.output<typeof ProductListQuery>;
 
@@ -13,9 +13,9 @@ export async function findFirmProduct(em: EntityManager, organizationId: string,
 }
 
 export async function listProducts(em: EntityManager, organizationId: string, query: ListQuery) {
-  const like = likeIgnoringCase(em, likePattern(query.search));
-  const search = query.search
-    ? { $or: [{ name: like }, { supplierCode: like }, { supplier: like }, { description: like }] }
+  const text = query.search;
+  const search = text
+    ? { $or: ['name', 'supplier_code', 'supplier', 'description'].map((column) => containsIgnoringCase(em, column, text)) }
     : {};
   const kind = query.kind ? { kind: query.kind } : {};
   const active = query.active === 'all' ? {} : { active: query.active === 'active' };

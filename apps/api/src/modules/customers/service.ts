@@ -1,15 +1,10 @@
 import { MAX_SITES_PER_CUSTOMER, type CustomerInput, type CustomerListQuery, type CustomerUpdate, type SiteInput, type SiteUpdate } from '@gloaming/contracts';
-import { Customer, likeIgnoringCase, Organization, Quote, Site, type EntityManager } from '@gloaming/db';
+import { Customer, containsIgnoringCase, Organization, Quote, Site, type EntityManager } from '@gloaming/db';
 import type { z } from 'zod';
 import { conflict, notFound } from '../../http/problem';
 
 type Out<T extends z.ZodType> = z.output<T>;
 type ListQuery = Out<typeof CustomerListQuery>;
-
-/** A LIKE pattern for a search; the user's own % and _ are dropped rather than treated as wildcards. */
-export function likePattern(search: string): string {
-  return `%${search.replace(/[%_\\]/g, '')}%`;
-}
 
 /** A stale edit: the version the client saw is not the one stored. */
 export function assertVersion(what: string, stored: number, sent: number): void {
@@ -28,16 +23,24 @@ export function sitesOf(em: EntityManager, customer: Customer): Promise<Site[]> 
 }
 
 export async function listCustomers(em: EntityManager, organizationId: string, query: ListQuery) {
-  const like = likeIgnoringCase(em, likePattern(query.search));
-  const siteMatches = query.search
+  const text = query.search;
+  const siteMatches = text
     ? await em.find(
         Site,
-        { organization: organizationId, $or: [{ postcode: like }, { addressLines: like }, { label: like }] },
+        {
+          organization: organizationId,
+          $or: ['postcode', 'address_lines', 'label'].map((column) => containsIgnoringCase(em, column, text)),
+        },
         { fields: ['customer'], limit: 1000 },
       )
     : [];
-  const search = query.search
-    ? { $or: [{ name: like }, { email: like }, { phone: like }, { id: { $in: siteMatches.map((s) => s.customer.id) } }] }
+  const search = text
+    ? {
+        $or: [
+          ...['name', 'email', 'phone'].map((column) => containsIgnoringCase(em, column, text)),
+          { id: { $in: siteMatches.map((s) => s.customer.id) } },
+        ],
+      }
     : {};
   const contact = query.contact === 'with-email' ? { email: { $ne: null } } : query.contact === 'without-email' ? { email: null } : {};
   const [customers, total] = await em.findAndCount(Customer, { $and: [{ organization: organizationId }, search, contact] }, {

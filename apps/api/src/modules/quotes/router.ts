@@ -8,7 +8,7 @@ import {
   type QuoteDetailResponse,
   type QuoteListResponse,
 } from '@gloaming/contracts';
-import { likeIgnoringCase, Quote, User, type EntityManager } from '@gloaming/db';
+import { containsIgnoringCase, Quote, User, type EntityManager } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { validatedBody } from '../../http/validate';
@@ -34,7 +34,6 @@ const quoteStaff = allowRoles('owner', 'estimator');
 export const QUOTE_BODY_LIMIT = '12mb';
 export const quoteBodyParser = express.json({ limit: QUOTE_BODY_LIMIT });
 
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 async function detail(em: EntityManager, quote: Quote): Promise<QuoteDetailResponse> {
   // the current revision whole first, then the list without documents (see listRevisionSummaries)
@@ -61,12 +60,11 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         if (status) where.status = status;
         if (estimatorId) where.estimator = estimatorId;
         if (q) {
-          const like = likeIgnoringCase(em, `%${escapeLike(q)}%`);
           const or: Record<string, unknown>[] = [
-            { title: like },
-            { customer: { name: like } },
-            { site: { addressLines: like } },
-            { site: { postcode: like } },
+            containsIgnoringCase(em, 'title', q),
+            { customer: containsIgnoringCase(em, 'name', q) },
+            { site: containsIgnoringCase(em, 'address_lines', q) },
+            { site: containsIgnoringCase(em, 'postcode', q) },
           ];
           const n = /^(?:q-?)?0*(\d{1,9})$/i.exec(q);
           if (n) or.push({ number: Number(n[1]) });
