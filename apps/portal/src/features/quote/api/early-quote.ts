@@ -3,7 +3,7 @@ import { fetchQuote } from './fetch-quote';
 
 /**
  * The quote's GET, started by the entry module before React and the page's code have
- * downloaded, so the answer travels while the code does. The quote query takes it once;
+ * downloaded, so the answer travels while the code does. The page takes it once (useQuote);
  * a retry (or any later fetch) goes to the network as usual.
  */
 let early: { token: string; answer: Promise<PortalQuoteView> } | null = null;
@@ -12,7 +12,7 @@ let early: { token: string; answer: Promise<PortalQuoteView> } | null = null;
 export function startQuoteFetch(token: string): Promise<PortalQuoteView | undefined> {
   const answer = fetchQuote(token);
   early = { token, answer };
-  // A failure is reported where the query takes the answer, not here.
+  // A failure is reported (or tried again) where the page takes the answer, not here.
   return answer.catch(() => undefined);
 }
 
