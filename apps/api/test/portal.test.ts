@@ -6,8 +6,8 @@
 import request from 'supertest';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PortalLinkProblem, PortalQuoteResponse, PortalTotalsResponse } from '@gloaming/contracts';
-import { PortalToken, Quote, QuoteApproval, QuoteEvent, QuoteMessage, QuoteRevision } from '@gloaming/db';
+import { formatQuoteNumber, PortalLinkProblem, PortalQuoteResponse, PortalTotalsResponse } from '@gloaming/contracts';
+import { OutboxMessage, PortalToken, Quote, QuoteApproval, QuoteEvent, QuoteMessage, QuoteRevision } from '@gloaming/db';
 import { expireOverdueQuotes } from '../src/modules/portal/service';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote, CUSTOMER_NAME, TELLTALE_COST_MINOR } from './estimate-fixture';
@@ -358,6 +358,12 @@ describe('approving', () => {
     const em = t.orm.em.fork();
     expect(await em.count(QuoteApproval, { quote: g.quote.id })).toBe(1);
     expect(await em.count(QuoteEvent, { quote: g.quote.id, type: 'approved' })).toBe(1);
+    // the e-mails were in the approval's own transaction: the refused ones left none behind
+    const reference = formatQuoteNumber(g.quote.number);
+    for (const kind of ['approval-confirmation', 'approved-notice']) {
+      const rows = await em.find(OutboxMessage, { kind, organization: g.quote.organization });
+      expect(rows.filter((m) => m.subject.includes(reference)), kind).toHaveLength(1);
+    }
   });
 
   it('needs a typed name and the terms accepted', async () => {

@@ -196,6 +196,8 @@ export async function processPaymentEvent(ctx: DepositDeps, em: EntityManager, e
           tx.clear(); // nothing of an unknown event is written
           return result;
         }
+        // the receipts go into the same transaction as the payment: they exist exactly when it does
+        if (result.paidPaymentId) await queueReceipts(ctx, tx, result.paidPaymentId);
         tx.create(PaymentWebhookEvent, {
           id: event.id,
           organization: result.organizationId ? tx.getReference(Organization, result.organizationId) : null,
@@ -216,15 +218,17 @@ export async function processPaymentEvent(ctx: DepositDeps, em: EntityManager, e
   }
   if (handled.outcome.kind === 'ignored' && handled.outcome.detail.startsWith('ignored: amount mismatch'))
     ctx.deps.logger.error(`payment webhook ${event.id}: ${handled.outcome.detail}`);
-  if (handled.paidPaymentId) await sendReceipts(ctx, handled.paidPaymentId);
   return handled.outcome;
 }
 
-/** The homeowner's receipt and the estimator's note. A mail failure is logged; the payment stands. */
-async function sendReceipts(ctx: DepositDeps, paymentId: string): Promise<void> {
+/**
+ * The homeowner's receipt and the estimator's note, put into the payment's transaction `em`
+ * (the outbox delivers them once it commits). A receipt that cannot be written is logged; the
+ * payment stands.
+ */
+async function queueReceipts(ctx: DepositDeps, em: EntityManager, paymentId: string): Promise<void> {
   const { deps } = ctx;
   try {
-    const em = deps.orm.em.fork();
     const payment = await em.findOneOrFail(DepositPayment, paymentId);
     const quote = await em.findOneOrFail(Quote, payment.quote.id, { populate: ['organization', 'estimator'] });
     const approval = await em.findOneOrFail(QuoteApproval, payment.approval.id);
@@ -245,7 +249,10 @@ async function sendReceipts(ctx: DepositDeps, paymentId: string): Promise<void> 
         paymentReference: payment.paymentIntentId ?? payment.checkoutSessionId,
         portalLink: null,
       });
-      await deps.mailer.send({ to: customer.email, fromName: senderNameOf(quote.organization as Organization), ...mail });
+      await deps.mailer.send(
+        { to: customer.email, fromName: senderNameOf(quote.organization as Organization), ...mail },
+        { em, kind: 'deposit-receipt', organizationId: quote.organization.id },
+      );
     }
     const note = estimatorDepositNote({
       estimatorName: estimator.name,
@@ -254,8 +261,8 @@ async function sendReceipts(ctx: DepositDeps, paymentId: string): Promise<void> 
       amount,
       quoteLink: `${deps.config.publicUrl}/quotes/${quote.id}`,
     });
-    await deps.mailer.send({ to: estimator.email, ...note });
+    await deps.mailer.send({ to: estimator.email, ...note }, { em, kind: 'deposit-note', organizationId: quote.organization.id });
   } catch (err) {
-    deps.logger.error(`deposit ${paymentId}: the receipt e-mail could not be sent`, err);
+    deps.logger.error(`deposit ${paymentId}: the receipt e-mail could not be queued`, err);
   }
 }

@@ -70,34 +70,31 @@ function ref(access: PortalAccess, customerName: string) {
 }
 
 /**
- * Mail that tells someone something already recorded: queued in the outbox right after that
- * change was flushed (the outbox retries while the mail server is down); a failure to queue is
- * logged, not fatal.
+ * Mail that tells someone of a change: put into the change's own unit of work before its
+ * flush, so the outbox row is written in the same transaction as the change (the mail exists
+ * exactly when the change does; the outbox then retries while the mail server is down).
  */
-async function notify(deps: ModuleDeps, mail: { to: string; fromName?: string; subject: string; text: string }): Promise<void> {
+async function notify(ctx: PortalContext, kind: string, mail: { to: string; fromName?: string; subject: string; text: string }): Promise<void> {
   if (!mail.to) return;
-  try {
-    await deps.mailer.send(mail);
-  } catch (err) {
-    deps.logger.error(`Portal e-mail "${mail.subject}" to ${mail.to} was not accepted by the mail server`, err);
-  }
+  await ctx.deps.mailer.send(mail, { em: ctx.em, kind, organizationId: ctx.access.organization.id });
 }
 
 export async function recordView(ctx: PortalContext): Promise<void> {
   const { deps, em, access } = ctx;
   const first = (await em.count(QuoteEvent, { revision: access.revision.id, type: 'viewed' })) === 0;
   appendQuoteEvent(em, access.quote, 'viewed', null, { revisionNumber: access.revision.number }, access.revision);
+  if (first) {
+    const { customer, estimator } = await people(em, access);
+    await notify(ctx, 'first-view', {
+      to: estimator.email,
+      ...firstViewMail({
+        ...ref(access, customer.name),
+        estimatorName: estimator.name,
+        workbenchLink: workbenchLink(deps, access.quote.id),
+      }),
+    });
+  }
   await em.flush();
-  if (!first) return;
-  const { customer, estimator } = await people(em, access);
-  await notify(deps, {
-    to: estimator.email,
-    ...firstViewMail({
-      ...ref(access, customer.name),
-      estimatorName: estimator.name,
-      workbenchLink: workbenchLink(deps, access.quote.id),
-    }),
-  });
 }
 
 export async function askQuestion(ctx: PortalContext, body: string): Promise<QuoteMessage> {
@@ -118,9 +115,8 @@ export async function askQuestion(ctx: PortalContext, body: string): Promise<Quo
     { revisionNumber: access.revision.number, messageId: message.id },
     access.revision,
   );
-  await em.flush();
   const { customer, estimator } = await people(em, access);
-  await notify(deps, {
+  await notify(ctx, 'question', {
     to: estimator.email,
     ...questionMail({
       ...ref(access, customer.name),
@@ -129,6 +125,7 @@ export async function askQuestion(ctx: PortalContext, body: string): Promise<Quo
       workbenchLink: workbenchLink(deps, access.quote.id),
     }),
   });
+  await em.flush();
   return message;
 }
 
@@ -223,19 +220,11 @@ export async function approveQuote(
     },
     access.revision,
   );
-  try {
-    await em.flush();
-  } catch (err) {
-    // Two approvals at once: the unique revision (or the quote's version) lets one through.
-    if (err instanceof UniqueConstraintViolationException || err instanceof OptimisticLockError) throw alreadyApproved();
-    throw err;
-  }
-
   const { customer, estimator } = await people(em, access);
   const money = (minor: number) => formatMoney(minor, settings.currency, settings.locale);
   const deposit = approval.depositMinor > 0 ? money(approval.depositMinor) : null;
   const when = new Intl.DateTimeFormat(settings.locale, { dateStyle: 'long', timeStyle: 'short', timeZone: 'UTC' }).format(now);
-  await notify(deps, {
+  await notify(ctx, 'approval-confirmation', {
     to: access.token.sentTo,
     fromName: senderNameOf(access.organization),
     ...approvalConfirmationMail({
@@ -248,7 +237,7 @@ export async function approveQuote(
       link: `${deps.config.publicUrl}${portalQuotePath(ctx.rawToken)}`,
     }),
   });
-  await notify(deps, {
+  await notify(ctx, 'approved-notice', {
     to: estimator.email,
     ...approvedNoticeMail({
       ...ref(access, customer.name),
@@ -259,6 +248,14 @@ export async function approveQuote(
       workbenchLink: workbenchLink(deps, access.quote.id),
     }),
   });
+  try {
+    await em.flush();
+  } catch (err) {
+    // Two approvals at once: the unique revision (or the quote's version) lets one through,
+    // and only its e-mails are written (they were in the same flush).
+    if (err instanceof UniqueConstraintViolationException || err instanceof OptimisticLockError) throw alreadyApproved();
+    throw err;
+  }
   return approval;
 }
 
@@ -274,9 +271,8 @@ export async function declineQuote(ctx: PortalContext, reason: string | undefine
     { revisionNumber: access.revision.number, ...(given ? { reason: given } : {}) },
     access.revision,
   );
-  await em.flush();
   const { customer, estimator } = await people(em, access);
-  await notify(deps, {
+  await notify(ctx, 'declined-notice', {
     to: estimator.email,
     ...declinedNoticeMail({
       ...ref(access, customer.name),
@@ -285,6 +281,7 @@ export async function declineQuote(ctx: PortalContext, reason: string | undefine
       workbenchLink: workbenchLink(deps, access.quote.id),
     }),
   });
+  await em.flush();
   return event;
 }
 
