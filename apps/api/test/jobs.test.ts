@@ -67,6 +67,16 @@ function expectNoPrices(body: unknown) {
   for (const amount of ['3900', '2100', '5200', '2800', '1100', '£']) expect(text).not.toContain(amount);
 }
 
+/** Each page's text, in page order. */
+async function pdfPages(bytes: Buffer): Promise<string[]> {
+  const parser = new PDFParse({ data: new Uint8Array(bytes) });
+  try {
+    return (await parser.getText()).pages.map((p) => p.text.replace(/\s+/g, ' ').trim());
+  } finally {
+    await parser.destroy();
+  }
+}
+
 async function pdfText(bytes: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(bytes) });
   try {
@@ -402,5 +412,18 @@ describe('GET /api/jobs/:id/pack.pdf, constant voltage', () => {
       expect(text).toContain(`drop ${(((12 - v) / 12) * 100).toFixed(1)} %`);
     }
     expect(text).not.toMatch(/£|\bcost\b|\bmargin\b|\bVAT\b/i);
+
+    // each circuit starts a page of its own, in order, and the footer numbers every page of
+    // the document (the pick list's pages and each circuit's) out of the same total
+    const pages = await pdfPages(res.body as Buffer);
+    expect(pages.length).toBeGreaterThanOrEqual(3);
+    pages.forEach((page, i) => expect(page).toContain(`installer’s pack · no prices · page ${i + 1} of ${pages.length}`));
+    const starts = pages.flatMap((page, i) => {
+      const heading = /^Circuit (\d+)\. /.exec(page);
+      return heading ? [{ page: i, circuit: Number(heading[1]) }] : [];
+    });
+    expect(starts.map((s) => s.circuit)).toEqual([1, 2]);
+    expect(starts[0]!.page).toBeGreaterThan(0);
+    expect(pages.filter((page) => /Circuit \d+\. /.test(page)).length).toBe(2);
   }, 30_000);
 });
