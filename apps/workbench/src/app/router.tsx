@@ -1,11 +1,8 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, data, redirect } from 'react-router-dom';
 import { AcceptInvitePage } from '../features/invites/components/accept-invite-page';
-import { JobsHome } from '../features/jobs/components/jobs-home';
-import { JobPackPage } from '../features/jobs/components/job-pack-page';
 import { jobsQueryOptions } from '../features/jobs/api/list-jobs';
 import { jobPackQueryOptions } from '../features/jobs/api/get-job-pack';
-import { OverviewPage } from '../features/overview/components/overview-page';
 import { ForgotPasswordPage } from '../features/password-reset/components/forgot-password-page';
 import { ResetPasswordPage } from '../features/password-reset/components/reset-password-page';
 import { SignInPage } from '../features/session/components/sign-in-page';
@@ -16,31 +13,32 @@ import { teamQueryOptions } from '../features/team/api/get-team';
 import { quotesQueryOptions } from '../features/quotes/api/list-quotes';
 import { quoteQueryOptions } from '../features/quotes/api/get-quote';
 import { QuoteEditorPage } from '../features/quotes/components/quote-editor-page';
-import { CircuitsPage } from '../features/circuits/components/circuits-page';
 import { circuitsQueryOptions } from '../features/circuits/api/list-circuits';
 import { quotePhotosQueryOptions } from '../features/photos/api/list-photos';
 import { QuotesHome, quoteFiltersFrom } from '../features/quotes/components/quotes-home';
-import { CataloguePage, productQueryFromSearch } from '../features/catalogue/components/catalogue-page';
-import { ImportWizard } from '../features/catalogue/components/import-wizard';
 import { productsQueryOptions } from '../features/catalogue/api/list-products';
+import { productQueryFromSearch } from '../features/catalogue/product-list-query';
 import { customerQueryOptions } from '../features/customers/api/get-customer';
 import { customersQueryOptions } from '../features/customers/api/list-customers';
-import { CustomerPage } from '../features/customers/components/customer-page';
-import { CustomersPage } from '../features/customers/components/customers-page';
-import { NewCustomerPage } from '../features/customers/components/new-customer-page';
 import { customerQueryFromSearch } from '../features/customers/customer-list-query';
-import { FiguresPage, figuresQueryFrom } from '../features/figures/components/figures-page';
 import { figuresQueryOptions } from '../features/figures/api/get-figures';
-import { ActivityPage, activityFiltersFrom } from '../features/activity/components/activity-page';
+import { figuresQueryFrom } from '../features/figures/figures-query';
 import { firmActivityQueryOptions } from '../features/activity/api/list-activity';
-import { FirmSettingsPage } from '../features/firm-settings/components/firm-settings-page';
+import { activityFiltersFrom } from '../features/activity/activity-filters';
 import { firmSettingsQueryOptions } from '../features/firm-settings/api/get-firm-settings';
+import { AppLoading } from './app-loading';
+import { lazyScreen } from './lazy-screen';
 import { RouteError } from './route-error';
 import { requireRole, requireUser, signedOutOnly } from './route-guards';
 
+/**
+ * The workbench's routes. Sign-in and the quotes list and estimate editor (where people start)
+ * are in the first download; every other screen's code is fetched when its route first opens
+ * (lazyScreen), while its loader, kept here, prefetches the data at the same time.
+ */
 export function createRouter(queryClient: QueryClient) {
   return createBrowserRouter([
-    { path: '/sign-in', element: <SignInPage />, loader: signedOutOnly(queryClient), errorElement: <RouteError /> },
+    { path: '/sign-in', element: <SignInPage />, loader: signedOutOnly(queryClient), errorElement: <RouteError />, hydrateFallbackElement: <AppLoading /> },
     { path: '/forgot-password', element: <ForgotPasswordPage /> },
     { path: '/reset-password', element: <ResetPasswordPage /> },
     { path: '/accept-invite', element: <AcceptInvitePage /> },
@@ -48,6 +46,7 @@ export function createRouter(queryClient: QueryClient) {
       path: '/',
       element: <AppShell />,
       errorElement: <RouteError />,
+      hydrateFallbackElement: <AppLoading />,
       loader: async ({ request }) => {
         await requireUser(queryClient, request);
         return null;
@@ -62,7 +61,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'overview',
-          element: <OverviewPage />,
+          lazy: { Component: lazyScreen(() => import('../features/overview/components/overview-page'), (m) => m.OverviewPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/overview'));
             await queryClient.prefetchQuery(teamQueryOptions());
@@ -71,7 +70,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'figures',
-          element: <FiguresPage />,
+          lazy: { Component: lazyScreen(() => import('../features/figures/components/figures-page'), (m) => m.FiguresPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/figures'));
             void queryClient.prefetchQuery(figuresQueryOptions(figuresQueryFrom(new URL(request.url).searchParams)));
@@ -80,7 +79,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'activity',
-          element: <ActivityPage />,
+          lazy: { Component: lazyScreen(() => import('../features/activity/components/activity-page'), (m) => m.ActivityPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/activity'));
             void queryClient.prefetchInfiniteQuery(firmActivityQueryOptions(activityFiltersFrom(new URL(request.url).searchParams)));
@@ -90,7 +89,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'settings',
-          element: <FirmSettingsPage />,
+          lazy: { Component: lazyScreen(() => import('../features/firm-settings/components/firm-settings-page'), (m) => m.FirmSettingsPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/settings'));
             await queryClient.prefetchQuery(firmSettingsQueryOptions());
@@ -121,7 +120,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'quotes/:quoteId/circuits',
-          element: <CircuitsPage />,
+          lazy: { Component: lazyScreen(() => import('../features/circuits/components/circuits-page'), (m) => m.CircuitsPage) },
           loader: async ({ request, params }) => {
             await requireRole(queryClient, request, rolesFor('/quotes'));
             if (params.quoteId) {
@@ -133,7 +132,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'customers',
-          element: <CustomersPage />,
+          lazy: { Component: lazyScreen(() => import('../features/customers/components/customers-page'), (m) => m.CustomersPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/customers'));
             await queryClient.prefetchQuery(customersQueryOptions(customerQueryFromSearch(new URL(request.url).searchParams)));
@@ -142,7 +141,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'customers/new',
-          element: <NewCustomerPage />,
+          lazy: { Component: lazyScreen(() => import('../features/customers/components/new-customer-page'), (m) => m.NewCustomerPage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/customers'));
             return null;
@@ -150,7 +149,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'customers/:customerId',
-          element: <CustomerPage />,
+          lazy: { Component: lazyScreen(() => import('../features/customers/components/customer-page'), (m) => m.CustomerPage) },
           loader: async ({ request, params }) => {
             await requireRole(queryClient, request, rolesFor('/customers'));
             if (params.customerId) await queryClient.prefetchQuery(customerQueryOptions(params.customerId));
@@ -159,7 +158,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'catalogue',
-          element: <CataloguePage />,
+          lazy: { Component: lazyScreen(() => import('../features/catalogue/components/catalogue-page'), (m) => m.CataloguePage) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/catalogue'));
             await queryClient.prefetchQuery(productsQueryOptions(productQueryFromSearch(new URL(request.url).searchParams)));
@@ -168,7 +167,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'catalogue/import',
-          element: <ImportWizard />,
+          lazy: { Component: lazyScreen(() => import('../features/catalogue/components/import-wizard'), (m) => m.ImportWizard) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/catalogue'));
             return null;
@@ -176,7 +175,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'jobs',
-          element: <JobsHome />,
+          lazy: { Component: lazyScreen(() => import('../features/jobs/components/jobs-home'), (m) => m.JobsHome) },
           loader: async ({ request }) => {
             await requireRole(queryClient, request, rolesFor('/jobs'));
             await queryClient.prefetchQuery(jobsQueryOptions());
@@ -185,7 +184,7 @@ export function createRouter(queryClient: QueryClient) {
         },
         {
           path: 'jobs/:jobId',
-          element: <JobPackPage />,
+          lazy: { Component: lazyScreen(() => import('../features/jobs/components/job-pack-page'), (m) => m.JobPackPage) },
           loader: async ({ request, params }) => {
             await requireRole(queryClient, request, rolesFor('/jobs'));
             if (params.jobId) await queryClient.prefetchQuery(jobPackQueryOptions(params.jobId));

@@ -4,22 +4,15 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { PageHeader } from '../../../components/ui/page-header';
 import { SelectField } from '../../../components/ui/select-field';
 import { useTeam } from '../../team/api/get-team';
-import type { ActivityFilters } from '../api/activity-keys';
 import { useFirmActivity } from '../api/list-activity';
 import { ActivityList } from './activity-list';
+import { activityFiltersFrom } from '../activity-filters';
 
 const KIND_OPTIONS = [
   { value: '', label: 'Everything' },
   { value: 'quote', label: 'Quotes' },
   { value: 'firm', label: 'Settings and team' },
 ];
-
-/** The filters live in the address (?person=…&kind=…), so a filtered log can be shared or reloaded. */
-export function activityFiltersFrom(params: URLSearchParams): ActivityFilters {
-  const kind = params.get('kind');
-  const person = params.get('person');
-  return { ...(person ? { actorId: person } : {}), ...(kind === 'quote' || kind === 'firm' ? { kind } : {}) };
-}
 
 /** The owner's log of who did what, when, across the firm. */
 export function ActivityPage() {

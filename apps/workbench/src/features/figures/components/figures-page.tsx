@@ -4,7 +4,6 @@ import {
   FUNNEL_STEP_LABELS,
   FUNNEL_STEPS,
   FigurePeriod,
-  type FiguresQuery,
   type FiguresResponse,
   type Funnel,
 } from '@gloaming/contracts';
@@ -21,19 +20,12 @@ import { useSignedInUser } from '../../session/hooks/use-signed-in-user';
 import { useFigures } from '../api/get-figures';
 import { FigureTable, type FigureColumn } from './figure-table';
 import { figureFormat, type FigureFormat } from './figure-format';
+import { figuresQueryFrom } from '../figures-query';
 
 const NOW_COLOUR = 'var(--color-dusk-600)';
 const BEFORE_COLOUR = 'var(--color-mist-400)';
 const LAMP = 'var(--color-lamp-500)';
 const LEAF = 'var(--color-leaf-700)';
-
-/** The period in the address bar: ?period=last-3-months, or custom with from/to. */
-export function figuresQueryFrom(search: URLSearchParams): FiguresQuery {
-  const period = FigurePeriod.safeParse(search.get('period'));
-  const p = period.success ? period.data : 'last-12-months';
-  if (p !== 'custom') return { period: p };
-  return { period: p, from: search.get('from') ?? '', to: search.get('to') ?? '' };
-}
 
 function funnelColumns<R>(f: FigureFormat, funnel: (r: R) => Funnel): FigureColumn<R>[] {
   return [

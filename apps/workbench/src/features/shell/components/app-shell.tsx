@@ -29,6 +29,12 @@ export function AppShell() {
       {navigation.state === 'loading' ? (
         <div role="progressbar" aria-label="Loading" className="fixed inset-x-0 top-0 z-40 h-0.5 animate-pulse bg-accent" />
       ) : null}
+      {/* Some screens are downloaded the first time they open: say so when that takes a moment. */}
+      <p role="status" className="pointer-events-none fixed top-3 right-4 z-40">
+        {navigation.state === 'loading' ? (
+          <span className="block rounded-pill bg-dusk-900 px-3.5 py-1.5 text-caption font-medium text-dusk-100 shadow-raised appear-after-pause">Opening…</span>
+        ) : null}
+      </p>
       <aside className="on-dark flex flex-col bg-dusk-900 px-4 py-6 text-dusk-100 lg:sticky lg:top-0 lg:h-screen">
         <div className="px-2.5">
           <Wordmark tone="light" />
