@@ -1,4 +1,7 @@
-import type { ComponentType } from 'react';
+import type { ReactNode } from 'react';
+
+/** A screen: a route's component, which takes no props. */
+type Screen = () => ReactNode;
 
 /**
  * A screen whose code could not be downloaded: the connection dropped, or Gloaming was updated
@@ -20,15 +23,21 @@ export const isScreenDownloadError = (error: unknown): error is ScreenDownloadEr
  *   lazy: { Component: lazyScreen(() => import('../features/figures/components/figures-page'), (m) => m.FiguresPage) }
  *
  * The route's loader stays in the router, so its data is fetched while the code downloads.
- * A failed download becomes a ScreenDownloadError, which RouteError explains, with a reload button.
+ * When the download fails, the screen's place is taken by a component that throws a
+ * ScreenDownloadError, so the route's error boundary (RouteError) explains it with a reload
+ * button. (A rejected lazy Component only reaches the error boundary when the route also has
+ * a loader; a loader-less route would show an empty page.)
  */
-export function lazyScreen<M>(load: () => Promise<M>, pick: (module: M) => ComponentType): () => Promise<ComponentType> {
+export function lazyScreen<M>(load: () => Promise<M>, pick: (module: M) => Screen): () => Promise<Screen> {
   return async () => {
     let module: M;
     try {
       module = await load();
     } catch (cause) {
-      throw new ScreenDownloadError({ cause });
+      const error = new ScreenDownloadError({ cause });
+      return function ScreenNotDownloaded(): never {
+        throw error;
+      };
     }
     return pick(module);
   };
