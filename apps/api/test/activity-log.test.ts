@@ -4,6 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ActivityResponse, FirmSettingsResponse, QuoteDetailResponse } from '@gloaming/contracts';
+import { FirmEvent, QuoteEvent } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 import { createQuoteFixture } from './quote-fixtures';
 
@@ -53,6 +54,28 @@ describe('the activity log', () => {
     expect(new Date(second.entries[0]!.at).getTime()).toBeLessThan(new Date(first.entries[0]!.at).getTime());
     const bad = await owner.get('/api/activity?kind=everything').expect(400);
     expect(bad.body.errors[0].path).toBe('query.kind');
+  });
+
+  it('pages through entries that share one instant without skipping or repeating any', async () => {
+    // five quote events and three firm events at the very same millisecond, in firm B
+    const em = t.orm.em.fork();
+    const { quote } = await createQuoteFixture(em, t.firmB, 'Bryony Castell');
+    const at = new Date('2026-06-01T09:00:00.000Z');
+    for (let i = 0; i < 5; i++) em.create(QuoteEvent, { organization: t.firmB.firm, quote, type: 'viewed', actor: null, at });
+    for (let i = 0; i < 3; i++) em.create(FirmEvent, { organization: t.firmB.firm, type: 'settings-changed', actor: t.firmB.users.owner, at });
+    await em.flush();
+    const ownerB = await t.signIn('owner', 'B');
+    const logB = async (query: string) => ActivityResponse.parse((await ownerB.get(`/api/activity${query}`).expect(200)).body);
+    const all = await logB('?limit=200');
+    const paged: string[] = [];
+    let page = await logB('?limit=2');
+    for (;;) {
+      paged.push(...page.entries.map((e) => e.id));
+      if (!page.nextBefore) break;
+      page = await logB(`?limit=2&before=${encodeURIComponent(page.nextBefore)}&beforeId=${encodeURIComponent(page.nextBeforeId!)}`);
+    }
+    expect(all.entries.length).toBeGreaterThanOrEqual(8);
+    expect(paged).toEqual(all.entries.map((e) => e.id));
   });
 
   it('gives another firm’s person nothing, and the quote’s own log only its history', async () => {

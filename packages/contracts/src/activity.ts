@@ -36,6 +36,11 @@ export type ActivityEntry = z.infer<typeof ActivityEntry>;
 export const ActivityQuery = z.object({
   /** Entries strictly older than this (the previous page's last `at`). */
   before: z.iso.datetime('Give a date-time like 2026-05-01T10:00:00.000Z.').optional(),
+  /**
+   * With `before`: the previous page's last entry id (`nextBeforeId`), so entries at the same
+   * instant as that one are neither skipped nor repeated at the page edge.
+   */
+  beforeId: z.string().min(1, 'Give the id of the last entry seen.').max(100, 'At most 100 characters.').optional(),
   limit: z.coerce.number().int('A whole number.').min(1, 'At least 1.').max(200, 'At most 200 entries a page.').default(50),
   /** Only what this person did. */
   actorId: z.uuid('Give a person’s id.').optional(),
@@ -46,7 +51,8 @@ export type ActivityQuery = z.input<typeof ActivityQuery>;
 
 export const ActivityResponse = z.object({
   entries: z.array(ActivityEntry),
-  /** Pass as `before` for the next page; null at the end. */
+  /** Pass as `before` (with `nextBeforeId` as `beforeId`) for the next page; null at the end. */
   nextBefore: z.iso.datetime().nullable(),
+  nextBeforeId: z.string().nullable(),
 });
 export type ActivityResponse = z.infer<typeof ActivityResponse>;

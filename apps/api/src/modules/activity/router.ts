@@ -15,11 +15,11 @@ export function activityRouters(_deps: ModuleDeps, registry: RegisteredRoute[]) 
       policy: ownerOnly,
       schemas: { query: ActivityQuery },
       handler: async ({ res, em, input, auth }) => {
-        const { before, limit, actorId, kind } = input.query;
+        const { before, beforeId, limit, actorId, kind } = input.query;
         res.json(
           await activityLog(em, auth.organizationId, {
             limit,
-            ...(before ? { before: new Date(before) } : {}),
+            ...(before ? { before: new Date(before), ...(beforeId ? { beforeId } : {}) } : {}),
             ...(actorId ? { actorId } : {}),
             ...(kind ? { kind } : {}),
           }),
@@ -36,8 +36,14 @@ export function activityRouters(_deps: ModuleDeps, registry: RegisteredRoute[]) 
       schemas: { params: IdParams, query: ActivityQuery },
       handler: async ({ res, em, input, auth }) => {
         const q = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
-        const { before, limit } = input.query;
-        res.json(await activityLog(em, auth.organizationId, { limit, quoteId: q.id, ...(before ? { before: new Date(before) } : {}) }));
+        const { before, beforeId, limit } = input.query;
+        res.json(
+          await activityLog(em, auth.organizationId, {
+            limit,
+            quoteId: q.id,
+            ...(before ? { before: new Date(before), ...(beforeId ? { beforeId } : {}) } : {}),
+          }),
+        );
       },
     }),
   ]);

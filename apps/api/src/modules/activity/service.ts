@@ -110,18 +110,25 @@ function quoteSummary(e: QuoteEvent, reference: string): string {
 export interface ActivityPage {
   entries: ActivityEntry[];
   nextBefore: string | null;
+  nextBeforeId: string | null;
 }
 
 /**
- * Newest first, `limit` at a time, strictly before `before`. With `quoteId`, only that quote's
- * history (no firm events); `actorId` keeps what one person did, `kind` one of the two histories.
+ * Newest first (by time, then id), `limit` at a time, strictly after the entry `before` /
+ * `beforeId` in that order (without `beforeId`: strictly older than `before`). With `quoteId`,
+ * only that quote's history (no firm events); `actorId` keeps what one person did, `kind` one
+ * of the two histories.
  */
 export async function activityLog(
   em: EntityManager,
   organizationId: string,
-  opts: { before?: Date; limit: number; quoteId?: string; actorId?: string; kind?: ActivityEntry['kind'] },
+  opts: { before?: Date; beforeId?: string; limit: number; quoteId?: string; actorId?: string; kind?: ActivityEntry['kind'] },
 ): Promise<ActivityPage> {
-  const at = opts.before ? { $lt: opts.before } : undefined;
+  const after = opts.before
+    ? opts.beforeId
+      ? { $or: [{ at: { $lt: opts.before } }, { at: opts.before, id: { $lt: opts.beforeId } }] }
+      : { at: { $lt: opts.before } }
+    : {};
   const actor = opts.actorId ? { actor: opts.actorId } : {};
   const take = opts.limit + 1;
   const quoteEvents =
@@ -129,7 +136,7 @@ export async function activityLog(
       ? []
       : await em.find(
           QuoteEvent,
-          { organization: organizationId, ...(opts.quoteId ? { quote: opts.quoteId } : {}), ...(at ? { at } : {}), ...actor },
+          { organization: organizationId, ...(opts.quoteId ? { quote: opts.quoteId } : {}), ...after, ...actor },
           { populate: ['actor', 'quote'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
         );
   const firmEvents =
@@ -137,7 +144,7 @@ export async function activityLog(
       ? []
       : await em.find(
           FirmEvent,
-          { organization: organizationId, ...(at ? { at } : {}), ...actor },
+          { organization: organizationId, ...after, ...actor },
           { populate: ['actor', 'subject'], orderBy: { at: 'desc', id: 'desc' }, limit: take },
         );
   const merged: { at: Date; entry: ActivityEntry }[] = [
@@ -173,5 +180,6 @@ export async function activityLog(
   ].sort((a, b) => b.at.getTime() - a.at.getTime() || (a.entry.id < b.entry.id ? 1 : -1));
   const page = merged.slice(0, opts.limit);
   const more = merged.length > opts.limit;
-  return { entries: page.map((m) => m.entry), nextBefore: more && page.length ? page[page.length - 1]!.entry.at : null };
+  const last = more && page.length ? page[page.length - 1]!.entry : null;
+  return { entries: page.map((m) => m.entry), nextBefore: last ? last.at : null, nextBeforeId: last ? last.id : null };
 }
