@@ -29,7 +29,9 @@ const s = StyleSheet.create({
   detailKey: { color: muted },
   intro: { marginBottom: 14, fontSize: 9.5, lineHeight: 1.4 },
   para: { fontSize: 9, lineHeight: 1.4 },
-  section: { marginBottom: 12 },
+  // the space between sections is a gap, not a margin: a gap is dropped at a page break,
+  // a margin would carry the table (and its repeated column heads) onto the next page
+  sections: { gap: 12, marginBottom: 12 },
   sectionHead: {
     flexDirection: 'row',
     justifyContent: 'space-between',
@@ -84,7 +86,8 @@ const s = StyleSheet.create({
     paddingVertical: 4,
     fontSize: 8.5,
   },
-  photoGrid: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between' },
+  // two photos a row, one row at a time: a wrapping grid is one block to the paginator
+  photoRow: { flexDirection: 'row', justifyContent: 'space-between' },
   photo: { width: '48.5%', marginBottom: 14 },
   photoImage: { width: '100%', height: 190, objectFit: 'cover', borderRadius: 3 },
   caption: { marginTop: 4, fontSize: 8.5, color: muted },
@@ -103,7 +106,8 @@ const s = StyleSheet.create({
   },
 });
 
-function LineRow({ line }: { line: PdfLine }) {
+/** The last line keeps the subtotal company: a continued table never shows a subtotal alone. */
+function LineRow({ line, last }: { line: PdfLine; last: boolean }) {
   const aside = line.kind !== 'standard';
   const tag =
     line.kind === 'optional'
@@ -112,7 +116,7 @@ function LineRow({ line }: { line: PdfLine }) {
         ? `Choose one${line.group ? `: ${line.group}` : ''} · ${line.included ? 'included' : 'alternative'}`
         : '';
   return (
-    <View style={aside ? [s.row, s.rowAside] : s.row} wrap={false}>
+    <View style={aside ? [s.row, s.rowAside] : s.row} wrap={false} minPresenceAhead={last ? 18 : undefined}>
       <View style={s.cDesc}>
         {tag ? <Text style={s.tag}>{tag}</Text> : null}
         <Text>{line.description || '—'}</Text>
@@ -129,13 +133,21 @@ function LineRow({ line }: { line: PdfLine }) {
   );
 }
 
+/**
+ * The heading keeps its column heads and first line company (minPresenceAhead). The
+ * paginator honours that only for a node with a break before it in the same column, and
+ * a column's first child has none: the empty View in front gives it one, so a heading
+ * that would end a page moves to the next one with its table. The column heads repeat
+ * (`fixed`) on every page the table continues on.
+ */
 function Section({ section }: { section: PdfSection }) {
   return (
-    <View style={s.section}>
+    <View>
+      <View />
       <View style={s.sectionHead} wrap={false} minPresenceAhead={40}>
         <Text style={s.sectionName}>{section.name}</Text>
       </View>
-      <View style={s.colHead} fixed>
+      <View style={s.colHead} fixed wrap={false}>
         <Text style={s.cDesc}>Description</Text>
         <Text style={s.cQty}>Qty</Text>
         <Text style={s.cUnit}>Unit price</Text>
@@ -143,15 +155,22 @@ function Section({ section }: { section: PdfSection }) {
         <Text style={s.cAmount}>Amount</Text>
       </View>
       {section.lines.map((line, i) => (
-        <LineRow key={i} line={line} />
+        <LineRow key={i} line={line} last={i === section.lines.length - 1} />
       ))}
-      <View style={s.sectionSubtotal}>
+      <View style={s.sectionSubtotal} wrap={false}>
         <Text>
           {section.name} subtotal (ex VAT): <Text style={s.strong}>{section.subtotal}</Text>
         </Text>
       </View>
     </View>
   );
+}
+
+/** The photos two by two, the last row possibly alone. */
+function pairs<T>(items: T[]): T[][] {
+  const rows: T[][] = [];
+  for (let i = 0; i < items.length; i += 2) rows.push(items.slice(i, i + 2));
+  return rows;
 }
 
 /** The homeowner's quotation: prices only, never costs or margins. */
@@ -165,13 +184,28 @@ export function QuoteDocument({ model }: { model: QuotePdfModel }) {
       creator="Gloaming"
       producer="Gloaming"
     >
-      <Page size="A4" style={s.page}>
-        <View style={s.footer} fixed>
-          <Text>
-            {firm.name} · {quote.reference}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+      {/*
+        react-pdf's newer pagination engine (experimentalPagination): the quote's page splitting
+        was most of its render time. The footer is the page's layout (that engine's page chrome),
+        drawn on every page with its own number and the total. The installer's pack stays on
+        the default engine.
+      */}
+      <Page
+        size="A4"
+        style={s.page}
+        experimentalPagination
+        layout={({ children, pageNumber, totalPages }) => (
+          <>
+            {children}
+            <View style={s.footer}>
+              <Text>
+                {firm.name} · {quote.reference}
+              </Text>
+              <Text>{`Page ${pageNumber ?? 1} of ${totalPages ?? '…'}`}</Text>
+            </View>
+          </>
+        )}
+      >
         <View style={s.header}>
           <View>
             {firm.logo ? (
@@ -230,9 +264,11 @@ export function QuoteDocument({ model }: { model: QuotePdfModel }) {
 
         {model.introduction ? <Text style={s.intro}>{model.introduction}</Text> : null}
 
-        {model.sections.map((section, i) => (
-          <Section key={i} section={section} />
-        ))}
+        <View style={s.sections}>
+          {model.sections.map((section, i) => (
+            <Section key={i} section={section} />
+          ))}
+        </View>
 
         <View style={s.totalsWrap} wrap={false}>
           <View style={s.totals}>
@@ -266,27 +302,28 @@ export function QuoteDocument({ model }: { model: QuotePdfModel }) {
         </View>
         {model.choicesNote ? <Text style={[s.small, { marginTop: 8 }]}>{model.choicesNote}</Text> : null}
 
-        <View style={s.block}>
-          <Text style={s.blockTitle} minPresenceAhead={30}>
-            Terms
-          </Text>
-          <Text style={s.para}>{model.terms || `This quotation is valid until ${quote.validUntil}.`}</Text>
-          <Text style={s.safety} wrap={false}>
-            {model.safetyNote}
-          </Text>
-        </View>
+        {/* top-level, not the first child of a block: only there does minPresenceAhead hold (see Section) */}
+        <Text style={[s.blockTitle, s.block]} minPresenceAhead={30}>
+          Terms
+        </Text>
+        <Text style={s.para}>{model.terms || `This quotation is valid until ${quote.validUntil}.`}</Text>
+        <Text style={s.safety} wrap={false}>
+          {model.safetyNote}
+        </Text>
 
         {model.photos.length > 0 ? (
           <View break>
             <Text style={[s.sectionName, { marginBottom: 8 }]}>Your garden: photos and plans</Text>
-            <View style={s.photoGrid}>
-              {model.photos.map((p, i) => (
-                <View key={i} style={s.photo} wrap={false}>
-                  <Image style={s.photoImage} src={{ data: Buffer.from(p.jpeg), format: 'jpg' }} />
-                  {p.caption ? <Text style={s.caption}>{p.caption}</Text> : null}
-                </View>
-              ))}
-            </View>
+            {pairs(model.photos).map((pair, i) => (
+              <View key={i} style={s.photoRow} wrap={false}>
+                {pair.map((p, j) => (
+                  <View key={j} style={s.photo}>
+                    <Image style={s.photoImage} src={{ data: Buffer.from(p.jpeg), format: 'jpg' }} />
+                    {p.caption ? <Text style={s.caption}>{p.caption}</Text> : null}
+                  </View>
+                ))}
+              </View>
+            ))}
           </View>
         ) : null}
       </Page>
