@@ -1,5 +1,3 @@
-// first: zod must be told not to try eval before any schema is built (content security policy)
-import '@gloaming/contracts/browser-validation';
 import '@fontsource/ibm-plex-sans/400.css';
 import '@fontsource/ibm-plex-sans/500.css';
 import '@fontsource/ibm-plex-sans/600.css';
