@@ -1,3 +1,4 @@
+import { PlainBand } from '../../../components/ui/page-shell';
 import { isApiError } from '../../../lib/api-error';
 import { FirmContact } from './firm-contact';
 
@@ -9,11 +10,7 @@ export function LinkProblemPage({ error }: { error: unknown }) {
   const detail = problem?.detail ?? 'Something went wrong while opening your quote. Please try again in a moment.';
   return (
     <div className="min-h-screen bg-canvas text-ink">
-      <header className="on-dark bg-dusk-950">
-        <div className="mx-auto max-w-2xl px-4 py-4 sm:px-6">
-          <span className="text-lead font-semibold text-white">Your lighting quote</span>
-        </div>
-      </header>
+      <PlainBand />
       <main id="main" className="mx-auto max-w-2xl px-4 py-8 sm:px-6">
         <div className="rounded-card bg-surface p-5 shadow-card ring-1 ring-line sm:p-8" data-link-state={state ?? 'error'}>
           <h1 className="text-title font-semibold tracking-tight">{title}</h1>
