@@ -8,10 +8,10 @@
  * pages, the portal quote page and the deposit return page) loads with zero CSP violations
  * (securitypolicyviolation events, recorded from the first script) and zero console errors.
  */
-import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
+import { pdfText } from '../support/pdf-text';
 import { launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { waitForMail, type CaughtMail } from '../support/quote-fixtures';
 import { startBuiltServer, type RunningServer } from '../support/server';
@@ -64,15 +64,6 @@ async function cspViolations(page: Page): Promise<string[]> {
 /** Elements a payload would have made if it had been parsed as HTML. */
 async function injected(page: Page): Promise<number> {
   return page.evaluate(() => document.querySelectorAll('img[src="x"], img[onerror], script:not([src])').length);
-}
-
-async function pdfText(bytes: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
 }
 
 const caught = (match: (m: CaughtMail) => boolean) => waitForMail(server.inboxUrl, match);

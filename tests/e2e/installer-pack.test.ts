@@ -11,7 +11,7 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { PDFParse } from 'pdf-parse';
+import { pdfText } from '../support/pdf-text';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import { ARTIFACTS_DIR, launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
@@ -139,9 +139,7 @@ describe("installer's pack", () => {
     const file = join(ARTIFACTS_DIR, 'installer-pack.pdf');
     await download.saveAs(file);
     expect(download.suggestedFilename()).toMatch(/^Q-\d{4}-installers-pack\.pdf$/);
-    const parser = new PDFParse({ data: new Uint8Array(readFileSync(file)) });
-    const text = (await parser.getText()).text;
-    await parser.destroy();
+    const text = await pdfText(readFileSync(file));
     expect(text).toContain('Installer’s pack');
     expect(text).toContain('Pick list');
     expect(text).toContain('Entrances: Deck lights');

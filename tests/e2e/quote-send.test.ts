@@ -6,11 +6,11 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QuoteDetailResponse, estimateQuoteInput, type EstimateContent } from '@gloaming/contracts';
 import { DEMO_ACCOUNTS } from '@gloaming/db';
 import { computeQuoteTotals, formatMoney } from '@gloaming/engine';
+import { pdfText } from '../support/pdf-text';
 import { ARTIFACTS_DIR, launchBrowser, screenshotPath, type BrowserSession } from '../support/browser';
 import { startBuiltServer, type RunningServer } from '../support/server';
 import { estimateLine, portalLinkIn, waitForMail } from '../support/quote-fixtures';
@@ -49,15 +49,6 @@ const content: EstimateContent = {
     },
   ],
 };
-
-async function pdfText(bytes: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
 
 describe('quote photos, PDF and sending', () => {
   it('uploads a photo, downloads the PDF and sends the quote with a working link', async () => {
