@@ -46,7 +46,9 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
   const dataDir = mkdtempSync(join(tmpdir(), 'gloaming-e2e-'));
   const [port, smtpPort, inboxPort, paymentsPort] = (await freePorts(4)) as [number, number, number, number];
   let out = '';
-  const child: ChildProcess = spawn(process.execPath, [join(repoRoot, 'apps/api/dist/main.js')], {
+  // GLOAMING_SERVER_NODE_ARGS: extra node flags for the server, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof"
+  const nodeArgs = (process.env.GLOAMING_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const child: ChildProcess = spawn(process.execPath, [...nodeArgs, join(repoRoot, 'apps/api/dist/main.js')], {
     cwd: repoRoot,
     env: {
       ...process.env,

@@ -9,7 +9,20 @@ export { backupDatabase, restoreDatabase, integrityCheck } from './backup';
 export { canonicalJson, contentHash } from './content-hash';
 export { designSettingsOf, revisionSettingsOf, revisionTotalsOf } from './revision-pricing';
 export { findSessionWithUser, type SessionWithUser } from './session-lookup';
-export { sqlEm, raw, sqlDialect, jsonValue, jsonNumber, dateParam, dateFromSql, containsIgnoringCase } from './sql-query';
+export { sqlEm, raw, sqlDialect, jsonValue, jsonNumber, dateParam, dateFromSql, containsIgnoringCase, runPlain } from './sql-query';
+export {
+  readQuote,
+  readRevision,
+  readRevisionSummaries,
+  readCircuits,
+  saveRevisionDocument,
+  type QuoteRow,
+  type RevisionRow,
+  type RevisionWithContentRow,
+  type CircuitRow,
+  type RevisionDocumentSave,
+  type RevisionDocumentSaved,
+} from './quote-reads';
 export { DEMO_ACCOUNTS, DEMO_FIRM, type DemoAccount } from './seeders/demo-accounts';
 export { DemoSeeder } from './seeders/demo-seeder';
 export type { EntityManager } from '@mikro-orm/core';

@@ -6,7 +6,7 @@
  */
 import type { EntityManager } from '@mikro-orm/core';
 import type { Role } from '@gloaming/contracts';
-import { dateFromSql, sqlEm } from './sql-query';
+import { dateFromSql, runPlain, sqlEm } from './sql-query';
 
 export interface SessionWithUser {
   sessionId: string;
@@ -60,13 +60,7 @@ export async function findSessionWithUser(em: EntityManager, id: string): Promis
       'u.organization_id as user_organization_id',
       'o.name as organization_name',
     );
-  let row: SessionRow | undefined;
-  try {
-    row = (await query) as SessionRow | undefined;
-  } catch (err) {
-    // the same exceptions the entity manager throws (a busy database is then a 503, not a 500)
-    throw err instanceof Error ? em.getDriver().convertException(err) : err;
-  }
+  const row = (await runPlain(em, query)) as SessionRow | undefined;
   if (!row) return null;
   const expiresAt = dateFromSql(row.expires_at);
   const createdAt = dateFromSql(row.created_at);

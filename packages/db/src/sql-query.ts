@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/core';
-import { raw, SqlEntityManager } from '@mikro-orm/knex';
+import { raw, SqlEntityManager, type Knex } from '@mikro-orm/knex';
 import { PostgreSqlPlatform } from '@mikro-orm/postgresql';
 import type { DatabaseDialect } from './config';
 
@@ -88,4 +88,33 @@ export function dateFromSql(v: unknown): Date | null {
     }
   }
   return d && !Number.isNaN(d.getTime()) ? d : null;
+}
+
+/**
+ * Run a knex query built on `sqlEm(em).getKnex()` (or a transaction of it), turning driver
+ * errors into the exceptions the entity manager throws, so a busy database is a 503 and a
+ * broken constraint a 409 exactly as through the entity manager.
+ */
+export async function runPlain<T>(em: EntityManager, query: PromiseLike<T>): Promise<T> {
+  try {
+    return await query;
+  } catch (err) {
+    throw err instanceof Error ? em.getDriver().convertException(err) : err;
+  }
+}
+
+/**
+ * A json column selected as its JSON text, for responses that pass a stored document through
+ * unparsed: SQLite keeps json as text already; PostgreSQL's driver would parse jsonb, so it
+ * is cast. `column` is a (table-qualified) SQL column; `as` the name it comes back under.
+ */
+export function jsonText(em: EntityManager, column: string, as: string): ReturnType<Knex['raw']> {
+  if (!SQL_REF.test(column) || !SQL_COLUMN.test(as)) throw new Error(`Not a plain column: ${column} as ${as}`);
+  const knex = sqlEm(em).getKnex();
+  return sqlDialect(em) === 'postgresql' ? knex.raw(`${column}::text as ${as}`) : knex.raw(`${column} as ${as}`);
+}
+
+/** A json column read by raw SQL, as a value: SQLite hands back text, PostgreSQL parsed jsonb. */
+export function jsonFromSql(v: unknown): unknown {
+  return typeof v === 'string' ? JSON.parse(v) : v;
 }

@@ -9,19 +9,21 @@ import {
   type CircuitSaveResponse,
   type CircuitSuggestionsResponse,
 } from '@gloaming/contracts';
-import { Circuit, type Organization, Product, newId, type EntityManager } from '@gloaming/db';
+import { Circuit, type Organization, Product, newId, readCircuits, type EntityManager } from '@gloaming/db';
 import { evaluateCircuit, suggestForCircuit } from '@gloaming/engine';
 import type { ModuleDeps } from '../../app-deps';
 import { conflict } from '../../http/problem';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
+import { arrayJsonText, sendJsonText, withJsonText } from '../../http/json-text';
 import { validatedBody } from '../../http/validate';
 import { recordAcceptances } from './acceptance-events';
 import { presentProduct } from '../catalogue/presenter';
-import { loadQuoteWithFirm, loadRevision } from '../quotes/service';
+import { loadQuoteWithFirm, loadRevision, readQuoteForFirm, readRevisionOf } from '../quotes/service';
 import {
   assertDraft,
   circuitDesign,
   circuitSettings,
+  circuitViewJson,
   firmProducts,
   listCircuits,
   loadCircuit,
@@ -51,22 +53,24 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: circuitStaff,
       schemas: { params: RevisionParams },
       handler: async ({ res, em, input, auth }) => {
-        const { revision, firm } = await scoped(em, auth.organizationId, input.params.id, input.params.revisionNumber);
-        const circuits = await listCircuits(em, revision);
-        const checkSettings = circuitSettings(revision, firm);
+        // plain rows: nothing here is changed, and the stored results pass through unparsed
+        const quote = await readQuoteForFirm(em, auth.organizationId, input.params.id);
+        const revision = await readRevisionOf(em, quote, input.params.revisionNumber);
+        const circuits = await readCircuits(em, revision.id);
+        const checkSettings = circuitSettings(revision, quote.organization);
         const products = await firmProducts(
           em,
           auth.organizationId,
           circuits.flatMap((c) => productRefs(circuitDesign(c)).map((r) => r.id)),
         );
-        const body: CircuitListResponse = {
-          circuits: circuits.map(presentCircuit),
-          products,
-          revision: presentRevisionState(revision),
-          profile: checkSettings.profile,
-          checkSettings,
-        };
-        res.json(body);
+        sendJsonText(
+          res,
+          withJsonText<CircuitListResponse, 'circuits'>(
+            { products, revision: presentRevisionState(revision), profile: checkSettings.profile, checkSettings },
+            'circuits',
+            arrayJsonText(circuits.map(circuitViewJson)),
+          ),
+        );
       },
     }),
     route({

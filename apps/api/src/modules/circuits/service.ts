@@ -13,8 +13,9 @@ import {
   type CircuitView,
   type Product as ProductView,
 } from '@gloaming/contracts';
-import { Circuit, Organization, Product, type QuoteRevision, type EntityManager } from '@gloaming/db';
+import { Circuit, Organization, Product, type CircuitRow, type QuoteRevision, type EntityManager } from '@gloaming/db';
 import { evaluateCircuit, type CircuitEvaluation, type CircuitSettings, type CodeProfileId } from '@gloaming/engine';
+import { storedJsonText, withJsonText, type JsonText } from '../../http/json-text';
 import { conflict, notFound } from '../../http/problem';
 import { presentProduct } from '../catalogue/presenter';
 import { priceRevision, revisionContent, revisionSettings, storedTotals } from '../quotes/service';
@@ -33,12 +34,12 @@ export function profileFor(firm: Pick<Organization, 'locale'>): CodeProfileId {
  * headroom, voltage-drop limit, IP minimums), snapshotted when it was made, so a sent revision
  * keeps being checked as it was. The workbench gets the same object (CircuitListResponse).
  */
-export function circuitSettings(revision: QuoteRevision, firm: Pick<Organization, 'locale'>): CircuitSettings & CircuitCheckSettings {
+export function circuitSettings(revision: Pick<QuoteRevision, 'id' | 'settings'>, firm: Pick<Organization, 'locale'>): CircuitSettings & CircuitCheckSettings {
   return checkSettingsOf(revisionSettings(revision).design, profileFor(firm));
 }
 
 /** The stored design, parsed with the contract (stored JSON that no longer parses is a server fault). */
-export function circuitDesign(circuit: Circuit): CircuitDesign {
+export function circuitDesign(circuit: Pick<Circuit, 'id' | 'design'>): CircuitDesign {
   const parsed = CircuitDesignSchema.safeParse(circuit.design);
   if (!parsed.success) throw new Error(`Circuit ${circuit.id} holds a design that does not match the contract.`);
   return parsed.data;
@@ -104,7 +105,7 @@ export function storedResult(evaluation: CircuitEvaluation): CircuitResult {
   };
 }
 
-export function presentCircuit(circuit: Circuit): CircuitView {
+function circuitViewWithout(circuit: Omit<CircuitRow, 'resultJson'>): Omit<CircuitView, 'result'> {
   return {
     id: circuit.id,
     revisionId: circuit.revision.id,
@@ -113,14 +114,26 @@ export function presentCircuit(circuit: Circuit): CircuitView {
     kind: circuit.kind,
     position: circuit.position,
     design: circuitDesign(circuit),
-    result: CircuitResult.parse(circuit.result),
     version: circuit.version,
     createdAt: circuit.createdAt.toISOString(),
     updatedAt: circuit.updatedAt.toISOString(),
   };
 }
 
-export function presentRevisionState(revision: QuoteRevision) {
+export function presentCircuit(circuit: Circuit): CircuitView {
+  return { ...circuitViewWithout(circuit), result: CircuitResult.parse(circuit.result) };
+}
+
+/**
+ * The same view as JSON text from a plain row (readCircuits): the engine's stored result
+ * passed through as stored (it is the output of `storedResult`, checked when it was saved).
+ * The design is parsed, as the contract fills in what older designs lack.
+ */
+export function circuitViewJson(circuit: CircuitRow): JsonText<CircuitView> {
+  return withJsonText<CircuitView, 'result'>(circuitViewWithout(circuit), 'result', storedJsonText(circuit.resultJson));
+}
+
+export function presentRevisionState(revision: Pick<QuoteRevision, 'id' | 'number' | 'state' | 'version'>) {
   return { id: revision.id, number: revision.number, state: revision.state, version: revision.version };
 }
 

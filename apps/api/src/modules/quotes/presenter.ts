@@ -6,14 +6,27 @@ import {
   type QuoteSummary,
   type RevisionSummary,
 } from '@gloaming/contracts';
-import type { Quote, QuoteEvent, QuoteRevision } from '@gloaming/db';
+import type { QuoteEvent, QuoteRevision, QuoteRow, RevisionWithContentRow } from '@gloaming/db';
+import { storedJsonText, withJsonText, type JsonText } from '../../http/json-text';
 import { revisionContent, revisionSettings } from './service';
 
 const iso = (d: Date) => d.toISOString();
 const isoOrNull = (d: Date | null | undefined) => (d ? d.toISOString() : null);
 
-/** Needs customer, site, estimator and organization loaded (loadQuoteForFirm does that). */
-export function presentQuoteSummary(quote: Quote): QuoteSummary {
+/**
+ * What a quote summary reads: a Quote entity with customer, site, estimator and organization
+ * loaded (loadQuoteForFirm), or the plain row of readQuote.
+ */
+type QuoteSummarySource = Pick<QuoteRow, 'id' | 'number' | 'title' | 'status' | 'valueMinor' | 'createdAt' | 'updatedAt'> & {
+  sentAt?: Date | null;
+  validUntil?: Date | null;
+  customer: QuoteRow['customer'];
+  site?: QuoteRow['site'];
+  estimator: QuoteRow['estimator'];
+  organization: Pick<QuoteRow['organization'], 'currency'>;
+};
+
+export function presentQuoteSummary(quote: QuoteSummarySource): QuoteSummary {
   return {
     id: quote.id,
     number: quote.number,
@@ -54,12 +67,11 @@ export function presentRevisionSummary(revision: RevisionSummarySource): Revisio
   };
 }
 
-export function presentRevision(revision: QuoteRevision): QuoteRevisionView {
+function revisionViewWithout(revision: RevisionSummarySource & Pick<QuoteRevision, 'settings' | 'version'>): Omit<QuoteRevisionView, 'content'> {
   return {
     id: revision.id,
     number: revision.number,
     state: revision.state,
-    content: revisionContent(revision),
     settings: revisionSettings(revision),
     totals: totalsOf(revision),
     version: revision.version,
@@ -67,6 +79,15 @@ export function presentRevision(revision: QuoteRevision): QuoteRevisionView {
     updatedAt: iso(revision.updatedAt),
     sentAt: isoOrNull(revision.sentAt),
   };
+}
+
+export function presentRevision(revision: QuoteRevision): QuoteRevisionView {
+  return { ...revisionViewWithout(revision), content: revisionContent(revision) };
+}
+
+/** The same view as JSON text, the estimate passed through as stored (readRevision with its content). */
+export function revisionViewJson(revision: RevisionWithContentRow): JsonText<QuoteRevisionView> {
+  return withJsonText<QuoteRevisionView, 'content'>(revisionViewWithout(revision), 'content', storedJsonText(revision.contentJson));
 }
 
 /** Needs actor and revision loaded (listQuoteEvents does that). */

@@ -7,22 +7,16 @@ import {
   SaveRevisionRequest,
   type QuoteDetailResponse,
   type QuoteListResponse,
+  type QuoteRevisionView,
+  type SaveRevisionResponse,
 } from '@gloaming/contracts';
-import { containsIgnoringCase, Quote, User, type EntityManager } from '@gloaming/db';
+import { containsIgnoringCase, Quote, User, readRevisionSummaries, type EntityManager, type QuoteRow } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
+import { sendJsonText, withJsonText, type JsonText } from '../../http/json-text';
 import { validatedBody } from '../../http/validate';
-import { presentQuoteEvent, presentQuoteSummary, presentRevision, presentRevisionSummary } from './presenter';
-import {
-  createQuote,
-  currentRevision,
-  listQuoteEvents,
-  listRevisionSummaries,
-  loadQuoteForFirm,
-  loadRevision,
-  reviseQuote,
-  saveRevisionContent,
-} from './service';
+import { presentQuoteEvent, presentQuoteSummary, presentRevisionSummary, revisionViewJson } from './presenter';
+import { createQuote, listQuoteEvents, loadQuoteForFirm, readQuoteForFirm, readRevisionOf, reviseQuote, saveRevisionContent } from './service';
 
 /** Quotes carry prices: owners and estimators only, never installers. */
 const quoteStaff = allowRoles('owner', 'estimator');
@@ -35,15 +29,15 @@ export const QUOTE_BODY_LIMIT = '12mb';
 export const quoteBodyParser = express.json({ limit: QUOTE_BODY_LIMIT });
 
 
-async function detail(em: EntityManager, quote: Quote): Promise<QuoteDetailResponse> {
-  // the current revision whole first, then the list without documents (see listRevisionSummaries)
-  const revision = await currentRevision(em, quote);
-  const revisions = await listRevisionSummaries(em, quote);
-  return {
-    quote: presentQuoteSummary(quote),
-    revision: presentRevision(revision),
-    revisions: revisions.map(presentRevisionSummary),
-  };
+/** A quote with its current revision (the estimate passed through as stored) and the list of revisions. */
+async function detail(em: EntityManager, quote: QuoteRow): Promise<JsonText<QuoteDetailResponse>> {
+  const revision = await readRevisionOf(em, quote, 'current', { content: true });
+  const revisions = await readRevisionSummaries(em, quote.id);
+  return withJsonText<QuoteDetailResponse, 'revision'>(
+    { quote: presentQuoteSummary(quote), revisions: revisions.map(presentRevisionSummary) },
+    'revision',
+    revisionViewJson(revision),
+  );
 }
 
 export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
@@ -99,7 +93,8 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { body: CreateQuoteRequest },
       handler: async ({ res, em, input, auth }) => {
         const quote = await createQuote(em, auth.organizationId, auth.user.id, input.body);
-        res.status(201).json(await detail(em, quote));
+        res.status(201);
+        sendJsonText(res, await detail(em, await readQuoteForFirm(em, auth.organizationId, quote.id)));
       },
     }),
     route({
@@ -109,7 +104,7 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: quoteStaff,
       schemas: { params: IdParams },
       handler: async ({ res, em, input, auth }) => {
-        res.json(await detail(em, await loadQuoteForFirm(em, auth.organizationId, input.params.id)));
+        sendJsonText(res, await detail(em, await readQuoteForFirm(em, auth.organizationId, input.params.id)));
       },
     }),
     route({
@@ -121,7 +116,8 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       handler: async ({ res, em, input, auth }) => {
         const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
         await reviseQuote(em, quote, { id: auth.user.id });
-        res.status(201).json(await detail(em, quote));
+        res.status(201);
+        sendJsonText(res, await detail(em, await readQuoteForFirm(em, auth.organizationId, quote.id)));
       },
     }),
     route({
@@ -131,8 +127,9 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       policy: quoteStaff,
       schemas: { params: RevisionParams },
       handler: async ({ res, em, input, auth }) => {
-        const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
-        res.json({ revision: presentRevision(await loadRevision(em, quote, input.params.revisionNumber)) });
+        const quote = await readQuoteForFirm(em, auth.organizationId, input.params.id);
+        const revision = await readRevisionOf(em, quote, input.params.revisionNumber, { content: true });
+        sendJsonText(res, withJsonText<{ revision: QuoteRevisionView }, 'revision'>({}, 'revision', revisionViewJson(revision)));
       },
     }),
     route({
@@ -143,20 +140,21 @@ export function quotesRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
       schemas: { params: RevisionParams },
       handler: async ({ req, res, em, input, auth }) => {
         // Scope first, so another firm's quote is a 404 whatever the body holds; then the body.
-        const quote = await loadQuoteForFirm(em, auth.organizationId, input.params.id);
-        const revision = await loadRevision(em, quote, input.params.revisionNumber);
+        const quote = await readQuoteForFirm(em, auth.organizationId, input.params.id);
+        const revision = await readRevisionOf(em, quote, input.params.revisionNumber);
         const body = validatedBody(req, SaveRevisionRequest);
         const saved = await saveRevisionContent(em, quote, revision, body.version, body.content);
-        res.json({
+        const response: SaveRevisionResponse = {
           revision: {
-            id: saved.revision.id,
-            number: saved.revision.number,
-            version: saved.revision.version,
+            id: revision.id,
+            number: revision.number,
+            version: saved.version,
             totals: saved.totals,
-            updatedAt: saved.revision.updatedAt.toISOString(),
+            updatedAt: saved.updatedAt.toISOString(),
           },
-          quote: presentQuoteSummary(quote),
-        });
+          quote: presentQuoteSummary(saved.quote),
+        };
+        res.json(response);
       },
     }),
     route({

@@ -7,6 +7,8 @@
  * - loadQuoteWithFirm(em, organizationId, id)    the quote with only its firm, or 404 (lighter)
  * - currentRevision(em, quote)                   the newest revision (there is always one)
  * - loadRevision(em, quote, number)              one revision by number, or 404
+ * - readQuoteForFirm(em, organizationId, id)     the quote as a plain row (readQuote), or 404: for reads and saves that change no entity
+ * - readRevisionOf(em, quote, number, options)    one revision as a plain row (readRevision), or 404
  * - listRevisionSummaries(em, quote)             every revision, newest first, without its document
  * - revisionContent(revision) / revisionSettings(revision)   the JSON parsed with the contracts
  * - priceRevision(content, settings)             the engine's totals for a document
@@ -35,9 +37,15 @@ import {
   UniqueConstraintViolationException,
   contentHash,
   newId,
+  readQuote,
+  readRevision,
   revisionSettingsOf,
   revisionTotalsOf,
+  saveRevisionDocument,
   type EntityManager,
+  type QuoteRow,
+  type RevisionRow,
+  type RevisionWithContentRow,
 } from '@gloaming/db';
 import { computeQuoteTotals, isEngineInputError, type QuoteTotals } from '@gloaming/engine';
 import { badRequest, conflict, notFound } from '../../http/problem';
@@ -74,6 +82,27 @@ export async function loadRevision(em: EntityManager, quote: Quote, number: numb
   return revision;
 }
 
+/** The quote as a plain row if it belongs to the firm; 404 otherwise (see @gloaming/db quote-reads). */
+export async function readQuoteForFirm(em: EntityManager, organizationId: string, id: string): Promise<QuoteRow> {
+  const quote = await readQuote(em, organizationId, id);
+  if (!quote) throw notFound('That quote');
+  return quote;
+}
+
+/** Revision `number` (or the newest) of a firm-scoped quote as a plain row, or 404. */
+export async function readRevisionOf(em: EntityManager, quote: Pick<QuoteRow, 'id'>, number: number | 'current', options: { content: true }): Promise<RevisionWithContentRow>;
+export async function readRevisionOf(em: EntityManager, quote: Pick<QuoteRow, 'id'>, number: number | 'current'): Promise<RevisionRow>;
+export async function readRevisionOf(
+  em: EntityManager,
+  quote: Pick<QuoteRow, 'id'>,
+  number: number | 'current',
+  options?: { content: true },
+): Promise<RevisionRow | RevisionWithContentRow> {
+  const revision = options ? await readRevision(em, quote.id, number, options) : await readRevision(em, quote.id, number);
+  if (!revision) throw notFound(number === 'current' ? 'That quote revision' : `Revision ${number} of this quote`);
+  return revision;
+}
+
 export async function listRevisions(em: EntityManager, quote: Quote): Promise<QuoteRevision[]> {
   return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
 }
@@ -88,13 +117,13 @@ export async function listRevisionSummaries(em: EntityManager, quote: Quote) {
 }
 
 /** The stored estimate document; stored JSON that no longer parses is a server fault, said plainly. */
-export function revisionContent(revision: QuoteRevision): EstimateContent {
+export function revisionContent(revision: Pick<QuoteRevision, 'id' | 'content'>): EstimateContent {
   const parsed = EstimateContent.safeParse(revision.content);
   if (!parsed.success) throw new Error(`Revision ${revision.id} holds an estimate that does not match the contract.`);
   return parsed.data;
 }
 
-export function revisionSettings(revision: QuoteRevision): RevisionSettings {
+export function revisionSettings(revision: Pick<QuoteRevision, 'id' | 'settings'>): RevisionSettings {
   const parsed = RevisionSettings.safeParse(revision.settings);
   if (!parsed.success) throw new Error(`Revision ${revision.id} holds settings that do not match the contract.`);
   return parsed.data;
@@ -263,28 +292,42 @@ export async function createQuote(em: EntityManager, organizationId: string, est
 
 /**
  * Save the whole grid. `version` must be the revision's current one (else 409, nothing
- * written); only a draft can be saved; totals are recomputed here with the engine.
+ * written); only a draft can be saved; totals are recomputed here with the engine. Written
+ * with one UPDATE under the version check (saveRevisionDocument), so a save that raced
+ * another is a 409 too. Returns the quote as it now is.
  */
 export async function saveRevisionContent(
   em: EntityManager,
-  quote: Quote,
-  revision: QuoteRevision,
+  quote: QuoteRow,
+  revision: RevisionRow,
   version: number,
   content: EstimateContent,
-): Promise<{ revision: QuoteRevision; totals: RevisionTotals }> {
-  if (revision.state !== 'draft')
-    throw conflict(`Revision ${revision.number} was sent and is frozen. Choose “Revise” to make a new draft from it.`);
-  if (revision.version !== version)
-    throw conflict(
-      `Someone else saved this quote after you opened it (your copy is version ${version}, the saved one is ${revision.version}). Reload theirs, or keep yours and save over it.`,
+): Promise<{ version: number; updatedAt: Date; totals: RevisionTotals; quote: QuoteRow }> {
+  const frozen = () => conflict(`Revision ${revision.number} was sent and is frozen. Choose “Revise” to make a new draft from it.`);
+  const stale = (saved: number) =>
+    conflict(
+      `Someone else saved this quote after you opened it (your copy is version ${version}, the saved one is ${saved}). Reload theirs, or keep yours and save over it.`,
     );
+  if (revision.state !== 'draft') throw frozen();
+  if (revision.version !== version) throw stale(revision.version);
   const totals = storedTotals(priceRevision(content, revisionSettings(revision)));
-  revision.content = content;
-  revision.totals = totals;
-  quote.valueMinor = totals.totalMinor;
-  quote.updatedAt = new Date();
-  await em.flush();
-  return { revision, totals };
+  const now = new Date();
+  const saved = await saveRevisionDocument(em, {
+    quoteId: quote.id,
+    revisionId: revision.id,
+    version,
+    contentJson: JSON.stringify(content),
+    totals,
+    valueMinor: totals.totalMinor,
+    now,
+  });
+  if (saved.outcome === 'stale') {
+    if (saved.state !== null && saved.state !== 'draft') throw frozen();
+    if (saved.version === null) throw notFound(`Revision ${revision.number} of this quote`);
+    throw stale(saved.version);
+  }
+  if (saved.outcome === 'unchanged') return { version, updatedAt: revision.updatedAt, totals, quote };
+  return { version: saved.version, updatedAt: now, totals, quote: { ...quote, valueMinor: totals.totalMinor, updatedAt: now } };
 }
 
 /**
