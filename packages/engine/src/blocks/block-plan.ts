@@ -24,6 +24,7 @@ import {
 } from './connector-block';
 import { blockEntries, entryUse, type BlockEntries, type EntryUse } from './entry-seals';
 import { installerSteps, type InstallerStep } from './installer-steps';
+import { fittingEndText, linkEndText, linkText } from '../wiring/conductor-id';
 
 export interface BlockPlanInput {
   string: SeriesStringLayout;
@@ -105,45 +106,45 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
   if (!groups || hasErrors(findings)) return empty();
 
   const linkRef = input.string.linkCable;
-  // Each fitting's name (`fitting:k`) is written once and shared by its + and - ends and its
-  // cable entry, instead of being written out again for each of the three.
-  const names = new Array<string>(n + 1);
-  for (let k = 1; k <= n; k++) names[k] = `fitting:${k}`;
-  const blocks: PlannedBlock[] = [];
-  const links: PlannedLink[] = [];
+  // Conductor ends and cable names come from the shared tables of canonical texts
+  // (fittingEndText, linkEndText): written once, flat, and shared by every plan.
   const m = groups.length;
+  const blocks = new Array<PlannedBlock>(m);
+  const links = new Array<PlannedLink>(m - 1);
 
   for (let j = 1; j <= m; j++) {
     const group = groups[j - 1]!;
     const a = group[0]!;
     const b = group[group.length - 1]!;
     const last = j === m;
-    const terminals: PlannedTerminal[] = [];
     const fromDriver = j === 1;
-    terminals.push(
-      fromDriver
-        ? { conductors: ['driver+', `${names[a]}+`], note: 'driver + to the first fitting' }
-        : { conductors: [`link:${j - 1}/core:1/end:B`, `${names[a]}+`], note: `string in from block ${j - 1}` },
-    );
-    for (let k = a; k < b; k++) terminals.push({ conductors: [`${names[k]}-`, `${names[k + 1]}+`] });
-    const returnIn = fromDriver ? 'driver-' : `link:${j - 1}/core:2/end:B`;
+    // Sized once: a joint per fitting and one in, plus the exit and the return when a link leaves.
+    const terminals = new Array<PlannedTerminal>(group.length + (last ? 1 : 2));
+    let ti = 0;
+    terminals[ti++] = fromDriver
+      ? { conductors: ['driver+', fittingEndText(a, '+')], note: 'driver + to the first fitting' }
+      : { conductors: [linkEndText(j - 1, 1, 'B'), fittingEndText(a, '+')], note: `string in from block ${j - 1}` };
+    for (let k = a; k < b; k++) terminals[ti++] = { conductors: [fittingEndText(k, '-'), fittingEndText(k + 1, '+')] };
+    const returnIn = fromDriver ? 'driver-' : linkEndText(j - 1, 2, 'B');
     if (last) {
-      terminals.push({ conductors: [`${names[b]}-`, returnIn], note: 'last fitting - returns to driver -' });
+      terminals[ti] = { conductors: [fittingEndText(b, '-'), returnIn], note: 'last fitting - returns to driver -' };
     } else {
-      terminals.push({ conductors: [`${names[b]}-`, `link:${j}/core:1/end:A`], note: `string on to block ${j + 1}` });
-      terminals.push({ conductors: [returnIn, `link:${j}/core:2/end:A`], note: 'return leg to driver -, passing through' });
+      terminals[ti++] = { conductors: [fittingEndText(b, '-'), linkEndText(j, 1, 'A')], note: `string on to block ${j + 1}` };
+      terminals[ti] = { conductors: [returnIn, linkEndText(j, 2, 'A')], note: 'return leg to driver -, passing through' };
     }
 
-    const uses: EntryUse[] = [];
-    uses.push(
-      fromDriver
-        ? entryUse(j, type, 'driver-lead', input.string.driverLead, findings)
-        : entryUse(j, type, `link:${j - 1}`, linkRef, findings),
-    );
-    for (const k of group) uses.push(entryUse(j, type, names[k]!, fittings[k - 1]?.tail, findings));
-    if (!last) uses.push(entryUse(j, type, `link:${j}`, linkRef, findings));
+    const uses = new Array<EntryUse>(group.length + (last ? 1 : 2));
+    let ui = 0;
+    uses[ui++] = fromDriver
+      ? entryUse(j, type, 'driver-lead', input.string.driverLead, findings)
+      : entryUse(j, type, linkText(j - 1), linkRef, findings);
+    for (let i = 0; i < group.length; i++) {
+      const k = group[i]!;
+      uses[ui++] = entryUse(j, type, fittingEndText(k, ''), fittings[k - 1]?.tail, findings);
+    }
+    if (!last) uses[ui] = entryUse(j, type, linkText(j), linkRef, findings);
 
-    blocks.push({
+    blocks[j - 1] = {
       number: j,
       label: `Block ${j}`,
       blockType: type.name,
@@ -153,8 +154,8 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
       terminals,
       spareTerminals: type.terminals - terminals.length,
       entries: blockEntries(type, uses),
-    });
-    if (!last) links.push({ number: j, fromBlock: j, toBlock: j + 1, lengthM: null, cores: 2, forwardCore: 1, returnCore: 2 });
+    };
+    if (!last) links[j - 1] = { number: j, fromBlock: j, toBlock: j + 1, lengthM: null, cores: 2, forwardCore: 1, returnCore: 2 };
   }
 
   for (const link of links) link.lengthM = linkLength(linkRef, link.number, findings);
@@ -172,7 +173,16 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
     );
   }
 
-  const lengths = links.map((l) => l.lengthM);
+  let seals = 0;
+  let reducers = 0;
+  let blankingPlugs = 0;
+  for (const blk of blocks) {
+    seals += blk.entries.seals;
+    reducers += blk.entries.reducers;
+    blankingPlugs += blk.entries.blankingPlugs;
+  }
+  let linkLengthM: number | null = 0;
+  for (const l of links) linkLengthM = l.lengthM === null || linkLengthM === null ? null : linkLengthM + l.lengthM;
   const plan: BlockPlan = {
     kind: 'constant-current',
     fittingCount: n,
@@ -180,23 +190,11 @@ export function planConnectorBlocks(input: BlockPlanInput): BlockPlan {
     blocks,
     links,
     steps: [],
-    totals: {
-      blocks: m,
-      seals: sum(blocks.map((blk) => blk.entries.seals)),
-      reducers: sum(blocks.map((blk) => blk.entries.reducers)),
-      blankingPlugs: sum(blocks.map((blk) => blk.entries.blankingPlugs)),
-      linkLengthM: lengths.some((l) => l === null) ? null : sum(lengths as number[]),
-    },
+    totals: { blocks: m, seals, reducers, blankingPlugs, linkLengthM },
     findings,
   };
   plan.steps = installerSteps(plan, labels);
   return plan;
-}
-
-function sum(xs: readonly number[]): number {
-  let s = 0;
-  for (const x of xs) s += x;
-  return s;
 }
 
 function isCount(x: unknown, min: number): x is number {
@@ -256,8 +254,8 @@ function assignInOrder(n: number, type: ConnectorBlockType, findings: Finding[])
   while (next <= n) {
     const left = n - next + 1;
     const take = blockNeeds(left, groups.length === 0 ? 'only' : 'last').terminals <= room ? left : room - 2;
-    const group: number[] = [];
-    for (let k = 0; k < take; k++) group.push(next + k);
+    const group = new Array<number>(take);
+    for (let k = 0; k < take; k++) group[k] = next + k;
     groups.push(group);
     next += take;
   }

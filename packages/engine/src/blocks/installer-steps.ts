@@ -1,7 +1,7 @@
 /**
  * The installer's step list for a block plan, in the order the work is done, in plain words.
  */
-import { newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
+import { flatText, newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
 import type { BlockPlan } from './block-plan';
 import { describeCable, type EntryUse } from './entry-seals';
 
@@ -11,36 +11,38 @@ export interface InstallerStep {
   text: string;
 }
 
+const ISOLATE =
+  "Switch off and isolate the driver's supply before you start. Mains-side work, protective devices and " +
+  'certification follow local wiring rules and are for a licensed electrician; this schedule covers the ' +
+  'extra-low-voltage side.';
+const CONFIRM =
+  'Compare every block with this schedule before closing its lid, then switch on and confirm each fitting lights. ' +
+  'In a series string one open joint leaves every fitting dark, and a reversed fitting stays dark.';
+
 /** `labels[k-1]` names fitting k; an empty label leaves the fitting by number only. */
 export function installerSteps(plan: BlockPlan, labels: readonly string[]): InstallerStep[] {
-  const steps: InstallerStep[] = [];
-  const add = (block: number | null, ...parts: (string | number)[]) => steps.push({ block, text: parts.join('') });
-  add(
-    null,
-    "Switch off and isolate the driver's supply before you start. Mains-side work, protective devices and " +
-      'certification follow local wiring rules and are for a licensed electrician; this schedule covers the ' +
-      'extra-low-voltage side.',
-  );
+  // Sized once: the two whole-circuit steps, a mount step per block and a step per link, then
+  // per block its entries, one step per terminal and the spare terminals.
+  let count = 2 + plan.blocks.length + plan.links.length;
+  for (const block of plan.blocks) count += 1 + block.terminals.length + (block.spareTerminals > 0 ? 1 : 0);
+  const steps = new Array<InstallerStep>(count);
+  let s = 0;
+  steps[s++] = { block: null, text: ISOLATE };
   for (const block of plan.blocks) {
-    add(block.number, 'Mount block ', block.number, ' (', block.blockType, ', ', block.ipCode, ') near ', fittingRange(block.fittings), '.');
+    steps[s++] = {
+      block: block.number,
+      text: flatText(`Mount block ${block.number} (${str(block.blockType)}, ${str(block.ipCode)}) near ${fittingRange(block.fittings)}.`),
+    };
   }
   for (const link of plan.links) {
-    add(
-      null,
-      'Lay link cable ',
-      link.number,
-      ' (two-core, ',
-      link.lengthM === null ? 'length to be measured' : `${link.lengthM} m`,
-      ') from block ',
-      link.fromBlock,
-      ' to block ',
-      link.toBlock,
-      '. Core ',
-      link.forwardCore,
-      ' carries the string on; core ',
-      link.returnCore,
-      ' carries the return back to the driver -.',
-    );
+    const length = link.lengthM === null ? 'length to be measured' : `${link.lengthM} m`;
+    steps[s++] = {
+      block: null,
+      text: flatText(
+        `Lay link cable ${link.number} (two-core, ${length}) from block ${link.fromBlock} to block ${link.toBlock}. ` +
+          `Core ${link.forwardCore} carries the string on; core ${link.returnCore} carries the return back to the driver -.`,
+      ),
+    };
   }
   // "fitting 3 (Oak uplight)", made once per fitting: each appears on two terminals.
   const names: (string | undefined)[] = new Array<string | undefined>(labels.length + 1);
@@ -65,50 +67,46 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
   const fittingJoint = (block: number, terminal: number, a: string, b: string): string | null => {
     if (!scanConductorEnd(a, scan) || scan.kind !== 'fitting') return null;
     const ka = scan.fitting;
-    const sa = scan.minus ? '-' : '+';
+    const and = scan.minus ? ' - and ' : ' + and ';
     if (!scanConductorEnd(b, scan) || scan.kind !== 'fitting') return null;
-    const sb = scan.minus ? '-' : '+';
-    return `Block ${block} terminal ${terminal}: land ${nameOf(ka)} ${sa} and ${nameOf(scan.fitting)} ${sb}.`;
+    const end = scan.minus ? ' -.' : ' +.';
+    return `Block ${block} terminal ${terminal}: land ${nameOf(ka)}${and}${nameOf(scan.fitting)}${end}`;
   };
   for (const block of plan.blocks) {
     const e = block.entries;
-    const cables = e.used === 1 ? ' cable' : ' cables';
-    const plugs = e.blankingPlugs === 1 ? ' spare entry' : ' spare entries';
-    add(
-      block.number,
-      'Bring ',
-      e.used,
-      cables,
-      ' into block ',
-      block.number,
-      ' (',
-      e.total,
-      ' entries) and seal each entry',
-      e.reducers > 0 ? `, with a reducer on the ${e.reducers} thinner cable${e.reducers === 1 ? '' : 's'}` : '',
-      e.blankingPlugs > 0 ? `; fit blanking plugs in the ${e.blankingPlugs}${plugs}` : '',
-      ': ',
-      cableList(block.fittings, e.cables),
-      '.',
-    );
+    const cables = e.used === 1 ? 'cable' : 'cables';
+    const reducers = e.reducers > 0 ? `, with a reducer on the ${e.reducers} thinner cable${e.reducers === 1 ? '' : 's'}` : '';
+    const plugs = e.blankingPlugs > 0 ? `; fit blanking plugs in the ${e.blankingPlugs} spare ${e.blankingPlugs === 1 ? 'entry' : 'entries'}` : '';
+    steps[s++] = {
+      block: block.number,
+      text: flatText(
+        `Bring ${e.used} ${cables} into block ${block.number} (${e.total} entries) and seal each entry${reducers}${plugs}: ` +
+          `${cableList(block.fittings, e.cables)}.`,
+      ),
+    };
     for (let i = 0; i < block.terminals.length; i++) {
       const t = block.terminals[i]!;
       const c = t.conductors;
       const joint = c.length === 2 && !t.note ? fittingJoint(block.number, i + 1, c[0]!, c[1]!) : null;
       const lands = joint ? '' : c.length === 2 ? `${describe(c[0]!)} and ${describe(c[1]!)}` : list(c.map(describe));
       const text = joint ?? `Block ${block.number} terminal ${i + 1}: land ${lands}${t.note ? ` (${t.note})` : ''}.`;
-      steps.push({ block: block.number, text: flat(text) });
+      steps[s++] = { block: block.number, text: flatText(text) };
     }
     if (block.spareTerminals > 0) {
-      const s = block.spareTerminals === 1 ? '' : 's';
-      add(block.number, 'Leave block ', block.number, "'s other ", block.spareTerminals, ' terminal', s, ' empty.');
+      const plural = block.spareTerminals === 1 ? '' : 's';
+      steps[s++] = {
+        block: block.number,
+        text: flatText(`Leave block ${block.number}'s other ${block.spareTerminals} terminal${plural} empty.`),
+      };
     }
   }
-  add(
-    null,
-    'Compare every block with this schedule before closing its lid, then switch on and confirm each fitting lights. ' +
-      'In a series string one open joint leaves every fitting dark, and a reversed fitting stays dark.',
-  );
+  steps[s] = { block: null, text: CONFIRM };
   return steps;
+}
+
+/** A part of a text as the step list has always written it: missing parts as nothing. */
+function str(x: unknown): string {
+  return x === undefined || x === null ? '' : String(x);
 }
 
 /** "driver lead, tails of fittings 1-4 and link cable 1". */
@@ -118,16 +116,6 @@ function cableList(fittings: readonly number[], cables: readonly EntryUse[]): st
   const tails = fittings.length === 1 ? `tail of fitting ${fittings[0]}` : `tails of ${fittingRange(fittings)}`;
   names.splice(1, 0, tails);
   return list(names);
-}
-
-/**
- * The string as one flat run of characters. Template literals build a chain of fragments;
- * converting to a number makes the engine flatten it in place, so a schedule of thousands
- * of steps keeps compact strings and the fragments are freed at once.
- */
-function flat(text: string): string {
-  void Number(text);
-  return text;
 }
 
 function fittingRange(fittings: readonly number[]): string {

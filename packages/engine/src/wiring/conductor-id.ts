@@ -125,6 +125,78 @@ export function formatConductorEnd(end: ConductorEnd): string {
   }
 }
 
+/**
+ * Canonical texts of the generator's conductor ends, made once per process and shared by
+ * every schedule after (like the other tables the engine reuses from call to call). Written
+ * with a template literal, a text of 13 characters or more (`fitting:1000+` on) is a chain of
+ * fragments, and whoever first reads it (the wiring check) makes a flat copy of it, so a
+ * schedule of thousands of ends paid for each end twice on every call. Fitting numbers up to
+ * TEXT_TABLE_LIMIT are kept (a string of up to 100 fittings is what a circuit holds; the
+ * table for 65,536 fittings is about 8 MB), higher ones are written fresh each time.
+ */
+const TEXT_TABLE_LIMIT = 65_536;
+/** Fitting k: `fitting:k` at 3k, `fitting:k+` at 3k+1, `fitting:k-` at 3k+2. */
+const fittingTexts: string[] = ['', '', ''];
+/** Link j: `link:j` at 5j, then `/core:1/end:A`, `/core:1/end:B`, `/core:2/end:A`, `/core:2/end:B`. */
+const linkTexts: string[] = ['', '', '', '', ''];
+
+let flatSink = 0;
+
+/**
+ * The string as one flat run of characters. A template literal builds a chain of fragments;
+ * reading a character makes the engine flatten it in place, so a schedule of thousands of
+ * texts keeps compact strings and the fragments are freed at once. (`void Number(text)` did
+ * this only until the function was optimised: the unused conversion was dropped. The read
+ * character goes to a module variable so it stays.)
+ */
+export function flatText(text: string): string {
+  flatSink = text.charCodeAt(0);
+  return text;
+}
+
+/** Keeps the flattening read observable; never needed by callers. */
+export function flatTextSink(): number {
+  return flatSink;
+}
+
+function tableIndex(x: number): boolean {
+  return Number.isInteger(x) && x >= 1 && x < TEXT_TABLE_LIMIT;
+}
+
+/** `fitting:3+` or `fitting:3-` (sign `+` / `-`), or `fitting:3` (the tail itself, sign ''). */
+export function fittingEndText(fitting: number, sign: EndPolarity | ''): string {
+  const slot = sign === '' ? 0 : sign === '+' ? 1 : 2;
+  if (!tableIndex(fitting)) return flatText(`fitting:${fitting}${sign}`);
+  while (fittingTexts.length <= 3 * fitting) {
+    const name = flatText(`fitting:${fittingTexts.length / 3}`);
+    fittingTexts.push(name, flatText(`${name}+`), flatText(`${name}-`));
+  }
+  return fittingTexts[3 * fitting + slot]!;
+}
+
+/** `link:2`: the link cable itself (its cable entry). */
+export function linkText(link: number): string {
+  return linkEndText(link, 0, 'A');
+}
+
+/** `link:2/core:1/end:A` (core 0: `link:2`, see linkText). */
+export function linkEndText(link: number, core: number, end: 'A' | 'B'): string {
+  if (!tableIndex(link) || !(core === 0 || core === 1 || core === 2)) {
+    return core === 0 ? `link:${link}` : flatText(`link:${link}/core:${core}/end:${end}`);
+  }
+  while (linkTexts.length <= 5 * link) {
+    const name = `link:${linkTexts.length / 5}`;
+    linkTexts.push(
+      name,
+      flatText(`${name}/core:1/end:A`),
+      flatText(`${name}/core:1/end:B`),
+      flatText(`${name}/core:2/end:A`),
+      flatText(`${name}/core:2/end:B`),
+    );
+  }
+  return linkTexts[5 * link + (core === 0 ? 0 : 2 * core - (end === 'A' ? 1 : 0))]!;
+}
+
 /** Plain words for a conductor end, e.g. "fitting 3 -" or "link cable 2 core 1 (end A)". */
 export function describeConductorEnd(end: ConductorEnd, fittingLabels?: readonly string[]): string {
   switch (end.kind) {
