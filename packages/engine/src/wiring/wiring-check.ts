@@ -20,6 +20,7 @@
 import { finding, hasErrors, type Finding } from '../findings';
 import { describeConductorEnd, formatConductorEnd, newConductorScan, scanConductorEnd, type ConductorEnd } from './conductor-id';
 import type { WiringKind, TerminalSchedule } from './terminal-schedule';
+import { LinkCores } from './link-cores';
 import { NodeEnds } from './node-ends';
 import { UnionFind } from './union-find';
 
@@ -87,7 +88,7 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
   const endTerminal = new Int32Array(2 * n + 2).fill(NONE);
   const endText: string[] = wantNodes ? new Array<string>(2 * n + 2) : [];
   const repeats = new Map<number, number[]>(); // element end -> every terminal it lands on
-  const linkEnds = new Map<number | string, { link: number; core: number; a: number[]; b: number[] }>();
+  const linkCores = new LinkCores(terminalTotal);
   const scan = newConductorScan();
   const unknownFittings = new Map<number, number[]>();
 
@@ -124,11 +125,7 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
           continue;
         }
         if (scan.kind === 'link') {
-          const { link, core } = scan;
-          const key = link < 1e6 && core < 1e6 ? link * 1e6 + core : `${link}/${core}`;
-          let rec = linkEnds.get(key);
-          if (!rec) linkEnds.set(key, (rec = { link, core, a: [], b: [] }));
-          (scan.endB ? rec.b : rec.a).push(t);
+          linkCores.add(scan.link, scan.core, scan.endB, t);
           continue;
         }
         if (scan.kind === 'fitting' && scan.fitting > n) {
@@ -233,32 +230,35 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
 
   // 2. Electrical nodes: terminals joined by link cores.
   const uf = new UnionFind(terminalCount);
-  for (const rec of [...linkEnds.values()].sort((x, y) => x.link - y.link || x.core - y.core)) {
-    const name = `link cable ${rec.link} core ${rec.core}`;
-    if (rec.a.length > 1 || rec.b.length > 1) {
-      const both = [...rec.a.map((t) => `end A on ${at(t)}`), ...rec.b.map((t) => `end B on ${at(t)}`)];
-      findings.push(
-        finding('link-end-repeated', 'error', `${cap(name)} has an end written twice: ${list(both)}.`, {
-          subject: `link:${rec.link}/core:${rec.core}`,
-        }),
-      );
-    }
-    const ends = [...rec.a, ...rec.b];
-    for (let i = 1; i < ends.length; i++) uf.union(ends[0]!, ends[i]!);
-    if (rec.a.length === 0 || rec.b.length === 0) {
-      const landed = rec.a.length ? 'A' : 'B';
-      const missing = rec.a.length ? 'B' : 'A';
-      findings.push(
-        finding(
-          'link-core-end-unlanded',
-          'warning',
-          `${cap(name)} has end ${landed} on ${at(ends[0]!)} but end ${missing} is not on any terminal. ` +
-            'A core that carries nothing should be insulated and parked, not left loose (common practice).',
-          { subject: `link:${rec.link}/core:${rec.core}` },
-        ),
-      );
-    }
-  }
+  linkCores.forEach(
+    (a, b) => uf.union(a, b),
+    (rec) => {
+      const name = `link cable ${rec.link} core ${rec.core}`;
+      if (rec.a.length > 1 || rec.b.length > 1) {
+        const both = [...rec.a.map((t) => `end A on ${at(t)}`), ...rec.b.map((t) => `end B on ${at(t)}`)];
+        findings.push(
+          finding('link-end-repeated', 'error', `${cap(name)} has an end written twice: ${list(both)}.`, {
+            subject: `link:${rec.link}/core:${rec.core}`,
+          }),
+        );
+      }
+      const ends = [...rec.a, ...rec.b];
+      for (let i = 1; i < ends.length; i++) uf.union(ends[0]!, ends[i]!);
+      if (rec.a.length === 0 || rec.b.length === 0) {
+        const landed = rec.a.length ? 'A' : 'B';
+        const missing = rec.a.length ? 'B' : 'A';
+        findings.push(
+          finding(
+            'link-core-end-unlanded',
+            'warning',
+            `${cap(name)} has end ${landed} on ${at(ends[0]!)} but end ${missing} is not on any terminal. ` +
+              'A core that carries nothing should be insulated and parked, not left loose (common practice).',
+            { subject: `link:${rec.link}/core:${rec.core}` },
+          ),
+        );
+      }
+    },
+  );
 
   const elementCount = 2 * n + 2;
   const nodeOf = new Int32Array(elementCount).fill(NONE);
@@ -293,15 +293,15 @@ function readCircuit(schedule: TerminalSchedule, wantNodes: boolean): { result: 
   const nodes: WiringNode[] = [];
   if (wantNodes) {
     const firstTerminal = new Map<number, number>();
-    nodeEnds.forEach((ends, r) => {
+    nodeEnds.forEachRoot((r) => {
       let first = terminalCount;
-      for (const e of ends) first = Math.min(first, endTerminal[e]!);
+      for (let i = 0; i < nodeEnds.count(r); i++) first = Math.min(first, endTerminal[nodeEnds.end(r, i)]!);
       firstTerminal.set(r, first);
     });
     const roots = nodeEnds.keys().sort((x, y) => firstTerminal.get(x)! - firstTerminal.get(y)!);
     const byLanding = (x: number, y: number) => endTerminal[x]! - endTerminal[y]! || x - y;
     for (const r of roots) {
-      const ends = nodeEnds.get(r)!;
+      const ends = nodeEnds.list(r);
       const order = ends.length === 2 ? (byLanding(ends[0]!, ends[1]!) <= 0 ? ends : [ends[1]!, ends[0]!]) : [...ends].sort(byLanding);
       nodes.push({
         terminals: terminalsOf(r).map(subjectOf),
@@ -370,13 +370,7 @@ function analyseSeries(a: Analysis): number[] | null {
   let nodeEnds = a.nodeEnds;
   let anyBypass = false;
   for (let k = 1; k <= n && !anyBypass; k++) anyBypass = bypassed(a, k);
-  if (anyBypass) {
-    nodeEnds = new NodeEnds(a.terminalCount);
-    a.nodeEnds.forEach((ends, root) => {
-      const kept = ends.filter((e) => e < 2 || !bypassed(a, e >> 1));
-      if (kept.length > 0) nodeEnds.set(root, kept);
-    });
-  }
+  if (anyBypass) nodeEnds = a.nodeEnds.filtered((e) => e < 2 || !bypassed(a, e >> 1));
 
   // Fittings sharing both nodes are in parallel.
   // Only a node with three or more ends can hold a parallel branch on the driver's loop.
@@ -386,7 +380,7 @@ function analyseSeries(a: Analysis): number[] | null {
     if (!bothEnds(a, k) || bypassed(a, k)) continue;
     const x = nodeOf[2 * k]!;
     const y = nodeOf[2 * k + 1]!;
-    if (nodeEnds.get(x)!.length < 3 && nodeEnds.get(y)!.length < 3) continue;
+    if (nodeEnds.count(x) < 3 && nodeEnds.count(y) < 3) continue;
     const key = Math.min(x, y) * span + Math.max(x, y);
     const group = pairs.get(key);
     if (group) group.push(k);
@@ -401,7 +395,7 @@ function analyseSeries(a: Analysis): number[] | null {
     const y = nodeOf[2 * k + 1]!;
     // Fittings whose two nodes carry nothing else form a closed loop of their own
     // (reported below as outside the loop), not a parallel branch on the driver.
-    if (nodeEnds.get(x)!.length === group.length && nodeEnds.get(y)!.length === group.length) continue;
+    if (nodeEnds.count(x) === group.length && nodeEnds.count(y) === group.length) continue;
     for (const j of group) implicated.add(j);
     parallelExtra.set(x, (parallelExtra.get(x) ?? 0) + group.length - 1);
     parallelExtra.set(y, (parallelExtra.get(y) ?? 0) + group.length - 1);
@@ -421,10 +415,11 @@ function analyseSeries(a: Analysis): number[] | null {
   const markNode = (ends: readonly number[]) => {
     for (const e of ends) if (e >= 2) implicated.add(e >> 1);
   };
-  nodeEnds.forEach((ends, root) => {
-    if (ends.length === 1) {
-      markNode(ends);
-      const e = ends[0]!;
+  nodeEnds.forEachRoot((root) => {
+    const count = nodeEnds.count(root);
+    if (count === 1) {
+      markNode([nodeEnds.end(root, 0)]);
+      const e = nodeEnds.end(root, 0);
       findings.push(
         finding(
           'open-circuit',
@@ -433,7 +428,8 @@ function analyseSeries(a: Analysis): number[] | null {
           { subject: a.subjectOf(a.endTerminal[e]!) },
         ),
       );
-    } else if (ends.length - (parallelExtra.get(root) ?? 0) > 2) {
+    } else if (count - (parallelExtra.get(root) ?? 0) > 2) {
+      const ends = nodeEnds.list(root);
       markNode(ends);
       findings.push(
         finding(
@@ -450,19 +446,22 @@ function analyseSeries(a: Analysis): number[] | null {
   // Walk the loop from driver + forwards and from driver - backwards.
   const visited = new Uint8Array(n + 1);
   const reversed: number[] = [];
-  const order: number[] = [];
+  // Sized once; the order is only given back when the walk met all n fittings.
+  const order = new Array<number>(n);
+  let ordered = 0;
   const walk = (start: number, forwards: boolean): boolean => {
     let arrived = start;
     for (let steps = 0; steps <= n; steps++) {
       if (nodeOf[arrived] === NONE) return false;
-      const ends = nodeEnds.get(nodeOf[arrived]!)!;
-      if (ends.length !== 2) return false;
-      const other = ends[0] === arrived ? ends[1]! : ends[0]!;
+      const node = nodeOf[arrived]!;
+      if (nodeEnds.count(node) !== 2) return false;
+      const first = nodeEnds.end(node, 0);
+      const other = first === arrived ? nodeEnds.end(node, 1) : first;
       if (other < 2) return other === (forwards ? 1 : 0);
       const k = other >> 1;
       if (visited[k]) return false;
       visited[k] = 1;
-      if (forwards) order.push(k);
+      if (forwards) order[ordered++] = k;
       const enteredAtPlus = (other & 1) === 0;
       if (enteredAtPlus !== forwards) reversed.push(k);
       arrived = other ^ 1;
@@ -492,7 +491,7 @@ function analyseSeries(a: Analysis): number[] | null {
     const inSet = new Set(outside);
     const ownLoop = outside.every((k) =>
       [2 * k, 2 * k + 1].every((e) => {
-        const ends = nodeEnds.get(nodeOf[e]!)!;
+        const ends = nodeEnds.list(nodeOf[e]!);
         return ends.length === 2 && ends.every((x) => x >= 2 && inSet.has(x >> 1));
       }),
     );
@@ -515,7 +514,7 @@ function analyseSeries(a: Analysis): number[] | null {
       }),
     );
   }
-  return closed && order.length === n && reversed.length === 0 ? order : null;
+  return closed && ordered === n && reversed.length === 0 ? order : null;
 }
 
 /** Constant voltage: every fitting straight across the supply, + to +, - to -. */
@@ -548,8 +547,8 @@ function analyseParallel(a: Analysis): void {
 
   // Ends on nodes other than the supply's: a series joint, or an open end.
   const offRail: [number, number[]][] = [];
-  nodeEnds.forEach((ends, root) => {
-    if (!rail(root)) offRail.push([root, ends]);
+  nodeEnds.forEachRoot((root) => {
+    if (!rail(root)) offRail.push([root, nodeEnds.list(root)]);
   });
   for (const [root, ends] of offRail) {
     const fittingsHere = [...new Set(ends.map((e) => e >> 1))].filter((k) => !bypassed(a, k));
@@ -577,7 +576,7 @@ function analyseParallel(a: Analysis): void {
     }
   }
   for (const p of [0, 1]) {
-    if (nodeEnds.get(nodeOf[p]!)!.length === 1 && n > 0) {
+    if (nodeEnds.count(nodeOf[p]!) === 1 && n > 0) {
       findings.push(
         finding(
           'open-circuit',
