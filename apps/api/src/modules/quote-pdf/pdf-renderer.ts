@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { InstallerPackPdfModel } from './installer-pack-model';
 import type { QuotePdfModel } from './pdf-model';
@@ -34,13 +35,18 @@ export function createWorkerPdfRenderer(): PdfRenderer {
 
   function start(): Worker {
     const fromSource = import.meta.url.endsWith('.ts');
+    // React's production build whatever the server's NODE_ENV (`npm start` runs with
+    // development): the worker has its own module graph, and the development build's checks
+    // cost about a tenth of a long render. Nothing in the worker is interactive to warn about.
+    const env = { ...process.env, NODE_ENV: 'production' };
     const w = fromSource
-      ? // Node 20 workers ignore --import loaders: load tsx's API in the worker, then the module
+      ? // Node 20 workers ignore --import loaders: load tsx's API in the worker, then the module,
+        // compiled with the api's tsconfig (JSX) wherever the process was started from
         new Worker(
-          `import('tsx/esm/api').then((tsx) => tsx.tsImport(${JSON.stringify(new URL('./pdf-worker.ts', import.meta.url).href)}, ${JSON.stringify(import.meta.url)}))`,
-          { eval: true },
+          `import('tsx/esm/api').then((tsx) => tsx.tsImport(${JSON.stringify(new URL('./pdf-worker.ts', import.meta.url).href)}, ${JSON.stringify({ parentURL: import.meta.url, tsconfig: fileURLToPath(new URL('../../../tsconfig.json', import.meta.url)) })}))`,
+          { eval: true, env },
         )
-      : new Worker(new URL('./pdf-worker.js', import.meta.url));
+      : new Worker(new URL('./pdf-worker.js', import.meta.url), { env });
     w.unref();
     w.on('message', (reply: Reply) => {
       const p = pending.get(reply.id);
