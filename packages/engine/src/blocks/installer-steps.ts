@@ -1,7 +1,8 @@
 /**
  * The installer's step list for a block plan, in the order the work is done, in plain words.
  */
-import { flatText, newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
+import { newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
+import { flatText } from '../wiring/flat-text';
 import type { BlockPlan } from './block-plan';
 import { describeCable, type EntryUse } from './entry-seals';
 

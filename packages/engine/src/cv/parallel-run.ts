@@ -299,7 +299,14 @@ export function checkCvRuns(input: CvInput): CvResult {
       continue;
     }
     const { ok, worstIndex } = judge(prepared.run, v, vs, dropLimitPct);
-    const fittings: CvFittingResult[] = v.voltagesV.map((volts, k) => {
+    // One pass, sized once. A run of thousands of fittings out of limits gives two findings a
+    // fitting, so they are written as the finding() helper writes them (same keys, same order)
+    // without its spread and its extra object, and the shown voltage is written once for both
+    // messages. (Flattening each message, as the installer steps do, cost more than it saved.)
+    const count = v.voltagesV.length;
+    const fittings = new Array<CvFittingResult>(count);
+    for (let k = 0; k < count; k++) {
+      const volts = v.voltagesV[k]!;
       const dropV = vs - volts;
       const dropPct = (dropV / vs) * 100;
       const min = prepared.run.minVoltagesV[k] ?? null;
@@ -315,36 +322,30 @@ export function checkCvRuns(input: CvInput): CvResult {
         withinDropLimit: dropPct <= dropLimitPct + EPS,
         aboveOwnMinimum: min === null || volts >= min - EPS,
       };
-      // the subject is written out only for a fitting that gets a finding
-      const subject = r.withinDropLimit && r.aboveOwnMinimum ? '' : `${runSubject}/fitting:${r.fittingId}`;
+      fittings[k] = r;
+      if (r.withinDropLimit && r.aboveOwnMinimum) continue;
+      // the subject and the shown voltage are written out only for a fitting that gets a finding
+      const subject = `${runSubject}/fitting:${r.fittingId}`;
+      const shownV = `${roundForDisplay(volts)}`;
       if (!r.withinDropLimit) {
-        findings.push(
-          finding(
-            'cv-drop-over-limit',
-            'warning',
-            `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, a ${roundForDisplay(dropPct, 1)} % drop, over the ${dropLimitPct} % limit: it will be dimmer than the rest.`,
-            {
-              subject,
-              values: { voltageV: roundForDisplay(volts, 3), dropPct: roundForDisplay(dropPct, 2), limitPct: dropLimitPct },
-            },
-          ),
-        );
+        findings.push({
+          code: 'cv-drop-over-limit',
+          severity: 'warning',
+          message: `Fitting "${r.fittingId}" gets ${shownV} V, a ${roundForDisplay(dropPct, 1)} % drop, over the ${dropLimitPct} % limit: it will be dimmer than the rest.`,
+          subject,
+          values: { voltageV: roundForDisplay(volts, 3), dropPct: roundForDisplay(dropPct, 2), limitPct: dropLimitPct },
+        });
       }
       if (!r.aboveOwnMinimum) {
-        findings.push(
-          finding(
-            'cv-below-fitting-minimum',
-            'error',
-            `Fitting "${r.fittingId}" gets ${roundForDisplay(volts)} V, below the ${min} V it needs to work properly.`,
-            {
-              subject,
-              values: { voltageV: roundForDisplay(volts, 3), minVoltageV: min ?? 0 },
-            },
-          ),
-        );
+        findings.push({
+          code: 'cv-below-fitting-minimum',
+          severity: 'error',
+          message: `Fitting "${r.fittingId}" gets ${shownV} V, below the ${min} V it needs to work properly.`,
+          subject,
+          values: { voltageV: roundForDisplay(volts, 3), minVoltageV: min ?? 0 },
+        });
       }
-      return r;
-    });
+    }
 
     let smallestCable: CvCableChoice | null = null;
     const scratch: number[] = [];

@@ -9,6 +9,7 @@
  * Parsing is forgiving about case, spaces and the typographic minus (−, –), strict about
  * everything else.
  */
+import { flatText } from './flat-text';
 
 export type EndPolarity = '+' | '-';
 
@@ -139,25 +140,6 @@ const TEXT_TABLE_LIMIT = 65_536;
 const fittingTexts: string[] = ['', '', ''];
 /** Link j: `link:j` at 5j, then `/core:1/end:A`, `/core:1/end:B`, `/core:2/end:A`, `/core:2/end:B`. */
 const linkTexts: string[] = ['', '', '', '', ''];
-
-let flatSink = 0;
-
-/**
- * The string as one flat run of characters. A template literal builds a chain of fragments;
- * reading a character makes the engine flatten it in place, so a schedule of thousands of
- * texts keeps compact strings and the fragments are freed at once. (`void Number(text)` did
- * this only until the function was optimised: the unused conversion was dropped. The read
- * character goes to a module variable so it stays.)
- */
-export function flatText(text: string): string {
-  flatSink = text.charCodeAt(0);
-  return text;
-}
-
-/** Keeps the flattening read observable; never needed by callers. */
-export function flatTextSink(): number {
-  return flatSink;
-}
 
 function tableIndex(x: number): boolean {
   return Number.isInteger(x) && x >= 1 && x < TEXT_TABLE_LIMIT;
