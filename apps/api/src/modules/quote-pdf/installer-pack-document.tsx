@@ -1,4 +1,4 @@
-import { Circle, Document, G, Line, Page, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import { Canvas, Circle, Document, Font, G, Line, Page, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
 import { PDF_FONT } from './fonts';
 import type {
   InstallerPackPdfModel,
@@ -16,6 +16,8 @@ const wash = '#f3f5fc';
 const lamp = '#b86c0c';
 const lampWash = '#fff8ec';
 const alarm = '#a3261b';
+
+const FOOTER_SIZE = 7.5;
 
 const s = StyleSheet.create({
   page: { fontFamily: PDF_FONT, fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 52, paddingHorizontal: 40 },
@@ -68,16 +70,8 @@ const s = StyleSheet.create({
   checkRow: { flexDirection: 'row', alignItems: 'center', marginBottom: 4 },
   wiredSafe: { borderLeftWidth: 3, borderLeftColor: ink, paddingLeft: 6, marginTop: 4 },
   wiredUnsafe: { borderLeftWidth: 3, borderLeftColor: alarm, paddingLeft: 6, marginTop: 4 },
-  footer: {
-    position: 'absolute',
-    bottom: 24,
-    left: 40,
-    right: 40,
-    flexDirection: 'row',
-    justifyContent: 'space-between',
-    fontSize: 7.5,
-    color: muted,
-  },
+  footer: { position: 'absolute', bottom: 24, left: 40, right: 40, height: FOOTER_SIZE * 1.3 },
+  totalProbe: { position: 'absolute', top: 0, left: 0, width: 0, height: 0 },
 });
 
 /** Column widths: the first column takes what the others leave. */
@@ -445,17 +439,67 @@ function CircuitSection({ c, index }: { c: PackPdfCircuit; index: number }) {
   );
 }
 
-function Footer({ reference }: { reference: string }) {
+/**
+ * Page numbers without a render prop: react-pdf lays a page out again for every page that holds
+ * a render prop, once while splitting and once more for the totals (on this pack that was a
+ * third of the render). So the footer is a fixed Canvas painted while the PDF is written, when
+ * every page is laid out: pages are written in order, so the n-th paint is page n, and the total
+ * comes from one render-prop probe on the document's last page element (each page element is at
+ * most a few pages, so its relayouts are cheap).
+ */
+interface PageNumbering {
+  total: number;
+  painted: number;
+}
+
+function Footer({ reference, numbering }: { reference: string; numbering: PageNumbering }) {
   return (
-    <Text
+    <Canvas
       style={s.footer}
       fixed
-      render={({ pageNumber, totalPages }) => `${reference} installer’s pack · no prices · page ${pageNumber} of ${totalPages}`}
+      paint={(painter: FooterPainter) => {
+        numbering.painted += 1;
+        if (numbering.total < numbering.painted) throw new Error('The page count was not known when the footer was painted.');
+        const font = Font.getFont({ fontFamily: PDF_FONT, fontWeight: 400 }).data;
+        if (!font) throw new Error('The footer font is not loaded.');
+        painter
+          .font(font)
+          .fontSize(FOOTER_SIZE)
+          .fillColor(muted)
+          .text(`${reference} installer’s pack · no prices · page ${numbering.painted} of ${numbering.total}`, 0, 0, {
+            lineBreak: false,
+          });
+        return null;
+      }}
+    />
+  );
+}
+
+/** The part of pdfkit's document a Canvas painter exposes that the footer uses. */
+interface FooterPainter {
+  font(font: unknown): FooterPainter;
+  fontSize(size: number): FooterPainter;
+  fillColor(color: string): FooterPainter;
+  text(text: string, x: number, y: number, options: { lineBreak: boolean }): FooterPainter;
+}
+
+/** Records the document's page count for the footers; draws nothing. */
+function PageTotalProbe({ numbering }: { numbering: PageNumbering }) {
+  return (
+    <Text
+      style={s.totalProbe}
+      fixed
+      render={({ totalPages }) => {
+        if (totalPages) numbering.total = totalPages;
+        return '';
+      }}
     />
   );
 }
 
 export function InstallerPackDocument({ model }: { model: InstallerPackPdfModel }) {
+  const numbering: PageNumbering = { total: 0, painted: 0 };
+  const last = model.circuits.length - 1;
   return (
     <Document
       title={`${model.reference} installer’s pack`}
@@ -503,12 +547,14 @@ export function InstallerPackDocument({ model }: { model: InstallerPackPdfModel 
           <Table key={t.title} table={t} />
         ))}
         {model.circuits.length === 0 && <Text style={s.muted}>This job has no circuits designed yet.</Text>}
-        <Footer reference={model.reference} />
+        <Footer reference={model.reference} numbering={numbering} />
+        {last < 0 && <PageTotalProbe numbering={numbering} />}
       </Page>
       {model.circuits.map((c, i) => (
         <Page key={i} size="A4" style={s.page}>
           <CircuitSection c={c} index={i} />
-          <Footer reference={model.reference} />
+          <Footer reference={model.reference} numbering={numbering} />
+          {i === last && <PageTotalProbe numbering={numbering} />}
         </Page>
       ))}
     </Document>
