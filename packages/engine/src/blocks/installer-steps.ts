@@ -1,7 +1,7 @@
 /**
  * The installer's step list for a block plan, in the order the work is done, in plain words.
  */
-import { newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
+import { hasTextAt, newConductorScan, scanConductorEnd } from '../wiring/conductor-id';
 import { flatText } from '../wiring/flat-text';
 import type { BlockPlan } from './block-plan';
 import { describeCable, type EntryUse } from './entry-seals';
@@ -45,16 +45,17 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
       ),
     };
   }
-  // "fitting 3 (Oak uplight)", made once per fitting: each appears on two terminals.
-  const names: (string | undefined)[] = new Array<string | undefined>(labels.length + 1);
+  // "fitting 3 (Oak uplight)": each fitting appears on two terminals one after the other
+  // (its - on one joint, its + on the one before), so the last name made is kept for the next.
+  let lastK = 0;
+  let lastName = '';
   const nameOf = (k: number): string => {
-    let name = names[k];
-    if (name === undefined) {
+    if (k !== lastK) {
       const label = labels[k - 1];
-      name = label ? `fitting ${k} (${label})` : `fitting ${k}`;
-      names[k] = name;
+      lastName = label ? `fitting ${k} (${label})` : `fitting ${k}`;
+      lastK = k;
     }
-    return name;
+    return lastName;
   };
   const scan = newConductorScan();
   const describe = (text: string): string => {
@@ -65,13 +66,13 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
     return `${nameOf(scan.fitting)} ${sign}`;
   };
   /** Step text for a joint between two fittings (the common case) in one template; null otherwise. */
-  const fittingJoint = (block: number, terminal: number, a: string, b: string): string | null => {
+  const fittingJoint = (head: string, terminal: number, a: string, b: string): string | null => {
     if (!scanConductorEnd(a, scan) || scan.kind !== 'fitting') return null;
     const ka = scan.fitting;
     const and = scan.minus ? ' - and ' : ' + and ';
     if (!scanConductorEnd(b, scan) || scan.kind !== 'fitting') return null;
     const end = scan.minus ? ' -.' : ' +.';
-    return `Block ${block} terminal ${terminal}: land ${nameOf(ka)}${and}${nameOf(scan.fitting)}${end}`;
+    return `${head}${terminal}: land ${nameOf(ka)}${and}${nameOf(scan.fitting)}${end}`;
   };
   for (const block of plan.blocks) {
     const e = block.entries;
@@ -85,10 +86,11 @@ export function installerSteps(plan: BlockPlan, labels: readonly string[]): Inst
           `${cableList(block.fittings, e.cables)}.`,
       ),
     };
+    const head = flatText(`Block ${block.number} terminal `); // shared by the block's joint texts
     for (let i = 0; i < block.terminals.length; i++) {
       const t = block.terminals[i]!;
       const c = t.conductors;
-      const joint = c.length === 2 && !t.note ? fittingJoint(block.number, i + 1, c[0]!, c[1]!) : null;
+      const joint = c.length === 2 && !t.note ? fittingJoint(head, i + 1, c[0]!, c[1]!) : null;
       const lands = joint ? '' : c.length === 2 ? `${describe(c[0]!)} and ${describe(c[1]!)}` : list(c.map(describe));
       const text = joint ?? `Block ${block.number} terminal ${i + 1}: land ${lands}${t.note ? ` (${t.note})` : ''}.`;
       steps[s++] = { block: block.number, text: flatText(text) };
@@ -113,7 +115,7 @@ function str(x: unknown): string {
 /** "driver lead, tails of fittings 1-4 and link cable 1". */
 function cableList(fittings: readonly number[], cables: readonly EntryUse[]): string {
   const names: string[] = [];
-  for (const c of cables) if (!c.cable.startsWith('fitting:')) names.push(describeCable(c.cable));
+  for (const c of cables) if (!hasTextAt(c.cable, 'fitting:')) names.push(describeCable(c.cable));
   const tails = fittings.length === 1 ? `tail of fitting ${fittings[0]}` : `tails of ${fittingRange(fittings)}`;
   names.splice(1, 0, tails);
   return list(names);
