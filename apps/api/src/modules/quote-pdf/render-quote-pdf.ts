@@ -1,7 +1,7 @@
 import { createElement } from 'react';
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import type { ReactElement } from 'react';
-import { registerPdfFonts } from './fonts';
+import { preparePdfFonts } from './fonts';
 import type { QuotePdfModel } from './pdf-model';
 import { QuoteDocument } from './quote-document';
 
@@ -10,7 +10,7 @@ import { QuoteDocument } from './quote-document';
  * no ORM and no request, so it runs in the worker thread (pdf-worker.ts) as well as inline.
  */
 export async function renderQuotePdf(model: QuotePdfModel): Promise<Buffer> {
-  registerPdfFonts();
+  await preparePdfFonts();
   const element = createElement(QuoteDocument, { model }) as unknown as ReactElement<DocumentProps>;
   return renderToBuffer(element);
 }
