@@ -1,4 +1,5 @@
 import { Canvas, Circle, Document, Font, G, Line, Page, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import { Fragment } from 'react';
 import { PDF_FONT } from './fonts';
 import type {
   InstallerPackPdfModel,
@@ -44,7 +45,6 @@ const s = StyleSheet.create({
   head: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: ink, paddingBottom: 2 },
   headCell: { fontSize: 7.5, fontWeight: 600, color: muted, textTransform: 'uppercase', letterSpacing: 0.4 },
   row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 3 },
-  cell: { paddingRight: 6 },
   step: { flexDirection: 'row', marginBottom: 3 },
   stepNo: { width: 16, color: muted },
   readingRow: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 5, alignItems: 'center' },
@@ -94,14 +94,15 @@ function widths(head: readonly string[]): (number | undefined)[] {
 }
 
 function Table({ table }: { table: PackPdfTable }) {
-  const w = widths(table.head);
-  const cellStyle = (i: number) => (w[i] === undefined ? [s.cell, { flex: 1 }] : [s.cell, { width: w[i] }]);
+  // one plain style object a column (react-pdf flattens a style array again for every cell)
+  const cells = widths(table.head).map((w) => (w === undefined ? { paddingRight: 6, flex: 1 } : { paddingRight: 6, width: w }));
+  const heads = cells.map((c) => ({ ...c, ...s.headCell }));
   return (
     <View style={s.table}>
       <Text style={s.h3}>{table.title}</Text>
-      <View style={s.head} fixed={false}>
+      <View style={s.head}>
         {table.head.map((h, i) => (
-          <Text key={h} style={[...cellStyle(i), s.headCell]}>
+          <Text key={h} style={heads[i]}>
             {h}
           </Text>
         ))}
@@ -109,7 +110,7 @@ function Table({ table }: { table: PackPdfTable }) {
       {table.rows.map((row, r) => (
         <View key={r} style={s.row} wrap={false}>
           {row.map((c, i) => (
-            <Text key={i} style={cellStyle(i)}>
+            <Text key={i} style={cells[i]}>
               {c}
             </Text>
           ))}
@@ -176,7 +177,7 @@ function Diagram({ d }: { d: PackPdfDiagram }) {
           const next = xs[j + 1];
           const link = d.links[j];
           return (
-            <G key={b.number}>
+            <Fragment key={b.number}>
               <Rect x={bx} y={TOP} width={bw} height={BLOCK_H} rx={3} fill="none" stroke={ink} strokeWidth={1.8} />
               <Text x={bx + 5} y={TOP + 12} fill={ink}>
                 {`Block ${b.number}`}
@@ -186,7 +187,7 @@ function Diagram({ d }: { d: PackPdfDiagram }) {
                 const fx = bx + 16 + k * FIT_W + FIT_W / 2 - 8;
                 const label = d.fittingLabels[n - 1] ?? '';
                 return (
-                  <G key={n}>
+                  <Fragment key={n}>
                     <Line x1={fx - 6} y1={TOP + BLOCK_H} x2={fx - 6} y2={FIT_Y - 11} stroke={ink} strokeWidth={1.5} />
                     <Line
                       x1={fx + 6}
@@ -210,19 +211,19 @@ function Diagram({ d }: { d: PackPdfDiagram }) {
                     <Text x={fx} y={FIT_Y + 24} fill={muted} textAnchor="middle">
                       {label.length > 10 ? `${label.slice(0, 9)}…` : label}
                     </Text>
-                  </G>
+                  </Fragment>
                 );
               })}
               {next !== undefined && (
-                <G>
+                <>
                   <Line x1={bx + bw} y1={FWD_Y} x2={next} y2={FWD_Y} stroke={ink} strokeWidth={2.2} />
                   <Line x1={bx + bw} y1={RET_Y} x2={next} y2={RET_Y} stroke={ink} strokeWidth={1.8} strokeDasharray="5 3" />
                   <Text x={(bx + bw + next) / 2} y={FWD_Y - 5} fill={muted} textAnchor="middle">
                     {`link ${link?.number ?? j + 1}${link?.lengthM ? ` · ${link.lengthM} m` : ''}`}
                   </Text>
-                </G>
+                </>
               )}
-            </G>
+            </Fragment>
           );
         })}
       </G>
@@ -293,7 +294,7 @@ function RunDiagram({ d }: { d: PackPdfRunDiagram }) {
           const xs = run.fittings.map((_, k) => BUS_X + 30 + k * RUN_FIT_W + RUN_FIT_W / 2);
           const lastX = xs.at(-1)!;
           return (
-            <G key={i}>
+            <Fragment key={i}>
               <Text x={BUS_X - 40} y={y0 + 10} fill={ink}>
                 {run.title}
               </Text>
@@ -311,18 +312,18 @@ function RunDiagram({ d }: { d: PackPdfRunDiagram }) {
                 </Text>
               ) : null}
               {run.hub ? (
-                <G>
+                <>
                   <Rect x={BUS_X} y={pos - 7} width={12} height={neg - pos + 14} fill="white" stroke={ink} strokeWidth={1.3} />
                   <Text x={BUS_X + 6} y={neg + 17} fill={muted} textAnchor="middle">
                     junction
                   </Text>
-                </G>
+                </>
               ) : null}
               {run.fittings.map((f, k) => {
                 const fx = xs[k]!;
                 const prevX = k === 0 ? BUS_X : xs[k - 1]!;
                 return (
-                  <G key={k}>
+                  <Fragment key={k}>
                     {run.alongPair ? (
                       <Text x={(prevX + fx) / 2} y={pos - 5} fill={muted} textAnchor="middle">
                         {f.span}
@@ -363,10 +364,10 @@ function RunDiagram({ d }: { d: PackPdfRunDiagram }) {
                     <Text x={fx} y={fitY + 44} fill={f.low ? alarm : muted} textAnchor="middle">
                       {f.drop}
                     </Text>
-                  </G>
+                  </Fragment>
                 );
               })}
-            </G>
+            </Fragment>
           );
         })}
       </G>
