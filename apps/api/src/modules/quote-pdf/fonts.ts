@@ -71,8 +71,12 @@ const FACES = [
   { file: 'ibm-plex-sans-latin-700-normal.woff', fontWeight: 700, fontStyle: 'normal' },
 ] as const;
 
-/** How many shaped strings a face keeps (a few hundred distinct ones make a long document). */
-const SHAPED_KEPT = 20_000;
+/**
+ * How many characters of shaped strings a face keeps (a glyph run costs some tens of bytes a
+ * character; the bench's 30-circuit pack shapes 7,837 characters of distinct strings in its
+ * regular face).
+ */
+const SHAPED_CHARS_KEPT = 200_000;
 
 /** The part of a fontkit font the cache wraps: `layout` shapes a string into a glyph run. */
 interface ShapingFont {
@@ -81,20 +85,26 @@ interface ShapingFont {
 
 /**
  * Remember each face's shaped strings. react-pdf shapes every text run through fontkit's
- * `layout` afresh, and a pack repeats a few hundred strings thousands of times (4,305 strings,
- * 208 distinct in the bench's 30 circuits). The glyph run is only read afterwards: react-pdf
- * scales its positions into new objects and copies its glyph list before changing it.
+ * `layout` afresh, and a pack repeats a few hundred strings thousands of times (the bench's
+ * 30-circuit pack: 6,017 runs in the regular face, 345 distinct). The glyph run is only read
+ * afterwards: react-pdf scales its positions into new objects and copies its glyph list before
+ * changing it.
  */
 function rememberShaping(font: ShapingFont): void {
   const shape = font.layout.bind(font);
   const shaped = new Map<string, unknown>();
+  let kept = 0;
   font.layout = (text, ...options) => {
     const key = `${JSON.stringify(options)}\u0000${text}`;
     let run = shaped.get(key);
     if (run === undefined) {
-      if (shaped.size >= SHAPED_KEPT) shaped.clear();
+      if (kept + text.length > SHAPED_CHARS_KEPT) {
+        shaped.clear();
+        kept = 0;
+      }
       run = shape(text, ...options);
       shaped.set(key, run);
+      kept += text.length;
     }
     return run;
   };
