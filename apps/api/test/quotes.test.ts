@@ -142,6 +142,25 @@ describe('PUT /api/quotes/:id/revisions/:n (save the grid)', () => {
     expect(again.quote.valueMinor).toBe(engine.totalMinor);
   });
 
+  it('writes nothing for a save of the document already stored: same version, same time, 200', async () => {
+    const { quote, revision } = await newQuote();
+    const doc = content([line({ description: 'Spike light by the pond' })]);
+    const first = SaveRevisionResponse.parse((await estimator.put(`/api/quotes/${quote.id}/revisions/1`).send({ version: revision.version, content: doc }).expect(200)).body);
+    const same = await estimator.put(`/api/quotes/${quote.id}/revisions/1`).send({ version: first.revision.version, content: doc });
+    expect(same.status).toBe(200);
+    const again = SaveRevisionResponse.parse(same.body);
+    expect(again.revision.version).toBe(first.revision.version);
+    expect(again.revision.updatedAt).toBe(first.revision.updatedAt);
+    expect(again.revision.totals).toEqual(first.revision.totals);
+    // a changed document is written again and moves the version on
+    const changed = content([line({ description: 'Spike light by the pond, moved left' })]);
+    const next = SaveRevisionResponse.parse((await estimator.put(`/api/quotes/${quote.id}/revisions/1`).send({ version: first.revision.version, content: changed }).expect(200)).body);
+    expect(next.revision.version).toBe(first.revision.version + 1);
+    const stored = QuoteDetailResponse.parse((await estimator.get(`/api/quotes/${quote.id}`)).body);
+    expect(stored.revision.version).toBe(next.revision.version);
+    expect(stored.revision.content).toEqual(changed);
+  });
+
   it('answers a stale version with 409 and keeps what the first person saved', async () => {
     const { quote, revision } = await newQuote();
     const mine = content([line({ description: 'Mine: uplighter on the birch' })]);

@@ -160,8 +160,18 @@ function revisionOf(row: Record<string, unknown>): RevisionRow {
  * Revision `number` of a quote (the newest with 'current'), or null. The quote must already
  * be scoped to the firm (readQuote). With `content: true` the estimate comes back as its text.
  */
-export async function readRevision(em: EntityManager, quoteId: string, number: number | 'current', options: { content: true }): Promise<RevisionWithContentRow | null>;
-export async function readRevision(em: EntityManager, quoteId: string, number: number | 'current', options?: { content?: false }): Promise<RevisionRow | null>;
+export async function readRevision(
+  em: EntityManager,
+  quoteId: string,
+  number: number | 'current',
+  options: { content: true },
+): Promise<RevisionWithContentRow | null>;
+export async function readRevision(
+  em: EntityManager,
+  quoteId: string,
+  number: number | 'current',
+  options?: { content?: false },
+): Promise<RevisionRow | null>;
 export async function readRevision(
   em: EntityManager,
   quoteId: string,
@@ -207,7 +217,19 @@ export async function readCircuits(em: EntityManager, revisionId: string): Promi
         { column: 'position', order: 'asc' },
         { column: 'created_at', order: 'asc' },
       ])
-      .select('id', 'revision_id', 'area', 'name', 'kind', 'position', 'design', jsonText(em, 'result', 'result_json'), 'version', 'created_at', 'updated_at'),
+      .select(
+        'id',
+        'revision_id',
+        'area',
+        'name',
+        'kind',
+        'position',
+        'design',
+        jsonText(em, 'result', 'result_json'),
+        'version',
+        'created_at',
+        'updated_at',
+      ),
   )) as Record<string, unknown>[];
   return rows.map((row) => {
     const what = `Circuit ${String(row.id)}`;
@@ -276,9 +298,9 @@ export async function saveRevisionDocument(em: EntityManager, save: RevisionDocu
         return { outcome: 'saved', version: save.version + 1 } as const;
       }
       const now = (await trx('quote_revisions').where('id', save.revisionId).first('version', 'state')) as
-        | { version: unknown; state: RevisionState }
-        | undefined;
-      if (now && Number(now.version) === save.version && now.state === 'draft') return { outcome: 'unchanged', version: save.version } as const;
+        { version: unknown; state: RevisionState } | undefined;
+      if (now && Number(now.version) === save.version && now.state === 'draft')
+        return { outcome: 'unchanged', version: save.version } as const;
       return { outcome: 'stale', version: now ? Number(now.version) : null, state: now?.state ?? null } as const;
     }),
   );

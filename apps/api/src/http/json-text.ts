@@ -28,7 +28,11 @@ export function arrayJsonText<T>(items: readonly JsonText<T>[]): JsonText<T[]> {
 }
 
 /** The JSON of `rest` with `key` set to `text` (added as the last member). */
-export function withJsonText<T extends object, K extends keyof T & string>(rest: Omit<T, K>, key: K, text: JsonText<T[K]>): JsonText<T> {
+export function withJsonText<T extends object, K extends keyof T & string>(
+  rest: Omit<T, K>,
+  key: K,
+  text: JsonText<T[K]>,
+): JsonText<T> {
   const head = JSON.stringify(rest);
   const member = `${JSON.stringify(key)}:${text}`;
   return (head === '{}' ? `{${member}}` : `${head.slice(0, -1)},${member}}`) as JsonText<T>;
