@@ -75,6 +75,9 @@ export function createApp(options: CreateAppOptions): GloamingApp {
   const app = express();
 
   app.disable('x-powered-by');
+  // No ETag on what handlers send: api answers are `no-store` (hashing a 120 KB estimate on
+  // every GET bought nothing); the front ends' files are served by express.static with its own.
+  app.set('etag', false);
   app.set('trust proxy', options.config.trustProxy);
   let draining = false;
   app.use((_req, res, next) => {

@@ -25,7 +25,7 @@ describe('JSON text pieces', () => {
   });
 
   it('handles an empty rest and arrays of pieces', () => {
-    const items = [toJsonText({ a: 1 }), toJsonText({ b: [2, 3] })];
+    const items = [toJsonText<unknown>({ a: 1 }), toJsonText<unknown>({ b: [2, 3] })];
     const text = withJsonText<{ list: unknown[] }, 'list'>({}, 'list', arrayJsonText(items));
     expect(text).toBe('{"list":[{"a":1},{"b":[2,3]}]}');
     expect(arrayJsonText([])).toBe('[]');
