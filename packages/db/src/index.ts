@@ -15,11 +15,13 @@ export {
   readRevision,
   readRevisionSummaries,
   readCircuits,
+  readProducts,
   saveRevisionDocument,
   type QuoteRow,
   type RevisionRow,
   type RevisionWithContentRow,
   type CircuitRow,
+  type ProductRow,
   type RevisionDocumentSave,
   type RevisionDocumentSaved,
 } from './quote-reads';

@@ -305,3 +305,69 @@ export async function saveRevisionDocument(em: EntityManager, save: RevisionDocu
     }),
   );
 }
+
+export interface ProductRow {
+  id: string;
+  kind: string;
+  supplier: string;
+  supplierCode: string;
+  name: string;
+  description: string;
+  unit: string;
+  costMinor: number;
+  listPriceMinor: number;
+  active: boolean;
+  spec: Record<string, unknown>;
+  createdAt: Date;
+  updatedAt: Date;
+  version: number;
+}
+
+/** The firm's products with these ids (the ones a revision's circuits name), by id. */
+export async function readProducts(em: EntityManager, organizationId: string, ids: readonly string[]): Promise<ProductRow[]> {
+  if (ids.length === 0) return [];
+  const knex = sqlEm(em).getKnex();
+  const rows = (await runPlain(
+    em,
+    knex('products')
+      .where('organization_id', organizationId)
+      .whereIn('id', ids)
+      .orderBy('id', 'asc')
+      .select(
+        'id',
+        'kind',
+        'supplier',
+        'supplier_code',
+        'name',
+        'description',
+        'unit',
+        'cost_minor',
+        'list_price_minor',
+        'active',
+        'spec',
+        'created_at',
+        'updated_at',
+        'version',
+      ),
+  )) as Record<string, unknown>[];
+  return rows.map((row) => {
+    const what = `Product ${String(row.id)}`;
+    return {
+      id: row.id as string,
+      kind: row.kind as string,
+      supplier: row.supplier as string,
+      supplierCode: row.supplier_code as string,
+      name: row.name as string,
+      description: row.description as string,
+      unit: row.unit as string,
+      costMinor: Number(row.cost_minor),
+      listPriceMinor: Number(row.list_price_minor),
+      // SQLite keeps booleans as 0/1, PostgreSQL as booleans
+      active: row.active === true || row.active === 1 || row.active === '1',
+      spec: jsonObject(row.spec),
+      createdAt: date(row.created_at, what),
+      updatedAt: date(row.updated_at, what),
+      version: Number(row.version),
+    };
+  });
+}

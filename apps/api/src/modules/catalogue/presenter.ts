@@ -1,5 +1,5 @@
 import { type PRODUCT_KINDS as CONTRACT_KINDS, Product as ProductView } from '@gloaming/contracts';
-import { type PRODUCT_KINDS as DB_KINDS, type Product } from '@gloaming/db';
+import { type PRODUCT_KINDS as DB_KINDS, type ProductRow } from '@gloaming/db';
 
 // The database and the contracts list the same kinds; this fails to compile if they drift.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
@@ -10,7 +10,8 @@ void kindsAgree;
  * Entity -> contract shape. The spec was validated against its kind's schema when it was
  * written; parsing again here keeps the response honest if a stored row was ever edited by hand.
  */
-export function presentProduct(product: Product): ProductView {
+/** A Product entity or the plain row of readProducts. */
+export function presentProduct(product: ProductRow): ProductView {
   return ProductView.parse({
     id: product.id,
     kind: product.kind,

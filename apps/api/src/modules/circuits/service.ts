@@ -13,7 +13,7 @@ import {
   type CircuitView,
   type Product as ProductView,
 } from '@gloaming/contracts';
-import { Circuit, Organization, Product, type CircuitRow, type QuoteRevision, type EntityManager } from '@gloaming/db';
+import { Circuit, Organization, readProducts, type CircuitRow, type QuoteRevision, type EntityManager } from '@gloaming/db';
 import { evaluateCircuit, type CircuitEvaluation, type CircuitSettings, type CodeProfileId } from '@gloaming/engine';
 import { storedJsonText, withJsonText, type JsonText } from '../../http/json-text';
 import { conflict, notFound } from '../../http/problem';
@@ -72,8 +72,8 @@ export function productRefs(design: CircuitDesign): { id: string; path: string }
 export async function firmProducts(em: EntityManager, organizationId: string, ids: Iterable<string>): Promise<ProductView[]> {
   const unique = [...new Set(ids)];
   if (unique.length === 0) return [];
-  const rows = await em.find(Product, { id: { $in: unique }, organization: organizationId }, { orderBy: { id: 'asc' } });
-  return rows.map(presentProduct);
+  // plain rows: products are only shown and fed to the engine here, never changed
+  return (await readProducts(em, organizationId, unique)).map(presentProduct);
 }
 
 /** A design may only name this firm's products: another firm's (or no) product is a 404 naming the field. */
