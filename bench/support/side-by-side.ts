@@ -58,8 +58,11 @@ export interface LoadFigures {
 /** Called before every run (so it can settle state the previous run left, e.g. requests cut off at its end). */
 export type Workload = (baseUrl: string) => Promise<Omit<autocannon.Options, 'url' | 'connections' | 'duration'>>;
 
+/** How long a request may take before autocannon gives up on it (counted in `errors`); its default is 10 s. */
+const REQUEST_TIMEOUT_S = 60;
+
 export async function loadRun(baseUrl: string, workload: Workload, connections: number, seconds: number): Promise<LoadFigures> {
-  const result = await autocannon({ url: baseUrl, connections, duration: seconds, ...(await workload(baseUrl)) });
+  const result = await autocannon({ url: baseUrl, connections, duration: seconds, timeout: REQUEST_TIMEOUT_S, ...(await workload(baseUrl)) });
   return {
     throughput: result.requests.average,
     p50: result.latency.p50,
