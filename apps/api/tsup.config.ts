@@ -3,7 +3,7 @@ import { defineConfig } from 'tsup';
 /**
  * The api is bundled into one ESM file for `npm start`: our workspace packages (TypeScript
  * sources) are compiled in; every third-party package stays external and loads from
- * node_modules (native addons such as argon2 and better-sqlite3 cannot be bundled).
+ * node_modules (native addons such as argon2 and sqlite3 cannot be bundled).
  */
 export default defineConfig({
   // the quote PDF renders in a worker thread: its entry sits beside main.js

@@ -1,4 +1,4 @@
-import Database from 'better-sqlite3';
+import sqlite3 from 'sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CustomerListResponse } from '@gloaming/contracts';
 import { openDatabase } from '@gloaming/db';
@@ -16,6 +16,10 @@ beforeAll(async () => {
 });
 afterAll(async () => t.close());
 
+function run(db: sqlite3.Database, sql: string): Promise<void> {
+  return new Promise((resolve, reject) => db.exec(sql, (err) => (err ? reject(err) : resolve())));
+}
+
 /** Another connection takes the write lock: SQLite's database lock, or PostgreSQL's lock on the customers table. */
 async function holdWriteLock(): Promise<{ release(): Promise<void> }> {
   if (t.dialect === 'postgresql') {
@@ -29,13 +33,12 @@ async function holdWriteLock(): Promise<{ release(): Promise<void> }> {
       },
     };
   }
-  const other = new Database(t.databaseFile);
-  other.pragma('busy_timeout = 0');
-  other.exec('BEGIN EXCLUSIVE;');
+  const other = new sqlite3.Database(t.databaseFile);
+  await run(other, 'PRAGMA busy_timeout = 0; BEGIN EXCLUSIVE;');
   return {
     async release() {
-      other.exec('ROLLBACK;');
-      other.close();
+      await run(other, 'ROLLBACK;');
+      await new Promise<void>((resolve) => other.close(() => resolve()));
     },
   };
 }

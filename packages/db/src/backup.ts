@@ -1,31 +1,72 @@
 import { existsSync, mkdirSync, renameSync, rmSync } from 'node:fs';
 import { dirname } from 'node:path';
-import Database from 'better-sqlite3';
+import sqlite3 from 'sqlite3';
 
 /**
  * Consistent copies of a live SQLite database with SQLite's online backup API
- * (sqlite3_backup_init/step/finish, https://www.sqlite.org/backup.html, through better-sqlite3's
- * `backup`, which steps again while the source is busy or locked), and restoring one. Under WAL
- * a writer that keeps going is neither blocked nor torn: the copy is the database as of one
- * commit.
+ * (sqlite3_backup_init/step/finish, https://www.sqlite.org/backup.html), and restoring one.
+ * The copy is taken in one step under a read transaction, so a writer that keeps going in
+ * WAL mode is neither blocked nor torn: the copy is the database as of one commit.
  */
 
-/**
- * better-sqlite3 copies 100 pages a step by default, and a source changed by another
- * connection between steps makes SQLite start again: after the first step, ask for every
- * remaining page at once, so the copy is one step under one read transaction (one commit's
- * state) and a busy writer cannot keep restarting it.
- */
-const IN_ONE_STEP = { progress: () => 0x7fffffff };
+/** The parts of node-sqlite3's Backup object we use (its bundled types leave it out). */
+interface SqliteBackup {
+  step(pages: number, cb: (err: Error | null) => void): void;
+  finish(cb?: (err: Error | null) => void): void;
+  readonly completed: boolean;
+  readonly failed: boolean;
+  retryErrors: number[];
+}
+type BackupCapable = sqlite3.Database & {
+  backup(
+    filename: string,
+    destName: string,
+    sourceName: string,
+    filenameIsDest: boolean,
+    cb: (err: Error | null) => void,
+  ): SqliteBackup;
+};
+
+function open(file: string, mode: number): Promise<BackupCapable> {
+  return new Promise((resolve, reject) => {
+    const db = new sqlite3.Database(file, mode, (err) => (err ? reject(err) : resolve(db as BackupCapable)));
+  });
+}
+
+function close(db: sqlite3.Database): Promise<void> {
+  return new Promise((resolve, reject) => db.close((err) => (err ? reject(err) : resolve())));
+}
+
+function all<T>(db: sqlite3.Database, sql: string): Promise<T[]> {
+  return new Promise((resolve, reject) => db.all(sql, (err, rows) => (err ? reject(err) : resolve(rows as T[]))));
+}
+
+/** Copy `from` into `to` page by page; retries while the source is busy or locked. */
+async function copyWithBackupApi(db: BackupCapable, otherFile: string, otherIsDestination: boolean): Promise<void> {
+  const backup = await new Promise<SqliteBackup>((resolve, reject) => {
+    const b = db.backup(otherFile, 'main', 'main', otherIsDestination, (err) => (err ? reject(err) : resolve(b)));
+  });
+  backup.retryErrors = [sqlite3.BUSY, sqlite3.LOCKED];
+  try {
+    for (let attempt = 0; !backup.completed; attempt++) {
+      if (backup.failed) throw new Error('SQLite backup failed');
+      if (attempt > 200) throw new Error('SQLite backup gave up: the database stayed busy');
+      await new Promise<void>((resolve, reject) => backup.step(-1, (err) => (err ? reject(err) : resolve())));
+      if (!backup.completed) await new Promise((r) => setTimeout(r, 25));
+    }
+  } finally {
+    await new Promise<void>((resolve) => backup.finish(() => resolve()));
+  }
+}
 
 /** `PRAGMA integrity_check` of a database file: 'ok' or the problems SQLite lists. */
 export async function integrityCheck(file: string): Promise<string> {
-  const db = new Database(file, { readonly: true, fileMustExist: true });
+  const db = await open(file, sqlite3.OPEN_READONLY);
   try {
-    const rows = db.pragma('integrity_check') as { integrity_check: string }[];
+    const rows = await all<{ integrity_check: string }>(db, 'PRAGMA integrity_check');
     return rows.map((r) => r.integrity_check).join('\n');
   } finally {
-    db.close();
+    await close(db);
   }
 }
 
@@ -39,19 +80,19 @@ export async function backupDatabase(source: string, destination: string): Promi
   mkdirSync(dirname(destination), { recursive: true });
   const partial = `${destination}.partial`;
   rmSync(partial, { force: true });
-  const db = new Database(source, { readonly: true, fileMustExist: true });
+  const db = await open(source, sqlite3.OPEN_READONLY);
   try {
-    await db.backup(partial, IN_ONE_STEP);
+    await copyWithBackupApi(db, partial, true);
   } finally {
-    db.close();
+    await close(db);
   }
   // The copy carries the source's WAL journal mode; a backup file should be one
   // self-contained file, so switch it back to a rollback journal (this also checkpoints).
-  const copy = new Database(partial, { fileMustExist: true });
+  const copy = await open(partial, sqlite3.OPEN_READWRITE);
   try {
-    copy.pragma('journal_mode = DELETE');
+    await all(copy, 'PRAGMA journal_mode = DELETE');
   } finally {
-    copy.close();
+    await close(copy);
   }
   const integrity = await integrityCheck(partial);
   if (integrity !== 'ok') {
@@ -71,12 +112,11 @@ export async function restoreDatabase(backupFile: string, target: string): Promi
   const before = await integrityCheck(backupFile);
   if (before !== 'ok') throw new Error(`The backup failed SQLite's integrity check: ${before}`);
   mkdirSync(dirname(target), { recursive: true });
-  // copy the backup's pages into the target file (the backup API rewrites its WAL coherently)
-  const db = new Database(backupFile, { readonly: true, fileMustExist: true });
+  const db = await open(target, sqlite3.OPEN_READWRITE | sqlite3.OPEN_CREATE);
   try {
-    await db.backup(target, IN_ONE_STEP);
+    await copyWithBackupApi(db, backupFile, false);
   } finally {
-    db.close();
+    await close(db);
   }
   return { file: target, integrity: await integrityCheck(target) };
 }

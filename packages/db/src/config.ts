@@ -3,7 +3,7 @@ import type { AbstractSqlDriver, SqlEntityManager } from '@mikro-orm/knex';
 import { Migrator } from '@mikro-orm/migrations';
 import { defineConfig as definePostgreSqlConfig } from '@mikro-orm/postgresql';
 import { SeedManager } from '@mikro-orm/seeder';
-import { defineConfig as defineSqliteConfig } from '@mikro-orm/better-sqlite';
+import { defineConfig as defineSqliteConfig } from '@mikro-orm/sqlite';
 import { entities } from './entities';
 import { migrationsList } from './migrations';
 import { migrationsList as postgresMigrationsList } from './migrations-postgres';
@@ -44,9 +44,8 @@ export function dialectOf(options: DatabaseOptions): DatabaseDialect {
   return 'sqlite';
 }
 
-/** The part of a better-sqlite3 connection the pool hook uses (synchronous). */
 interface SqliteHandle {
-  pragma(sql: string): unknown;
+  exec(sql: string, cb: (err: Error | null) => void): void;
 }
 interface PgClientHandle {
   query(sql: string, cb: (err: Error | null) => void): void;
@@ -101,15 +100,10 @@ export function ormConfig(options: DatabaseOptions): DatabaseConfig {
     dbName: file,
     pool: {
       afterCreate: (conn: SqliteHandle, done: (err: Error | null, conn: SqliteHandle) => void) => {
-        try {
-          if (file !== ':memory:') conn.pragma('journal_mode = WAL');
-          conn.pragma('foreign_keys = ON');
-          conn.pragma(`busy_timeout = ${timeout}`);
-          conn.pragma('synchronous = NORMAL');
-          done(null, conn);
-        } catch (err) {
-          done(err instanceof Error ? err : new Error(String(err)), conn);
-        }
+        const wal = file === ':memory:' ? '' : 'PRAGMA journal_mode = WAL;';
+        conn.exec(`${wal} PRAGMA foreign_keys = ON; PRAGMA busy_timeout = ${timeout}; PRAGMA synchronous = NORMAL;`, (err) =>
+          done(err, conn),
+        );
       },
     },
     migrations: migrationsFor('sqlite'),

@@ -1,5 +1,5 @@
 import type { ColumnMapping, ImportRejection, ProductInputParsed } from '@gloaming/contracts';
-import { ImportJob, Organization, Product, type Database, type EntityManager } from '@gloaming/db';
+import { databaseDialect, ImportJob, Organization, Product, openDatabase, type Database, type EntityManager } from '@gloaming/db';
 import { readRow } from './price-list-row';
 import { rowValues, type PriceListTable } from './price-list-file';
 
@@ -82,12 +82,8 @@ export async function planImport(
 
 /**
  * Write the plan in ONE transaction: every create and update, or none of them. Chunks are
- * flushed inside the transaction with a yield between them; any failure rolls the whole
- * import back. PostgreSQL: the transaction takes one of the pool's connections and other
- * requests keep the rest. SQLite: it holds the app's one connection, so other requests queue
- * for it during this short write phase (about a second for 20,000 rows) rather than meet a
- * second connection's write lock: the driver runs statements on this thread, and a write
- * waiting out the busy timeout there would stop the import committing (docs/adr/0004).
+ * flushed inside the transaction with a yield between them so other requests keep being
+ * answered; any failure rolls the whole import back.
  */
 export async function writePlan(em: EntityManager, organizationId: string, plan: ImportPlan): Promise<void> {
   await em.transactional(async (tx) => {
@@ -115,6 +111,25 @@ export async function writePlan(em: EntityManager, organizationId: string, plan:
   });
 }
 
+/**
+ * The write transaction holds its connection until it commits. The app's pool has one SQLite
+ * connection, so the import writes through a second one of its own: with WAL, every other
+ * request keeps reading on the first while the import writes. (An in-memory database cannot
+ * be shared, so it writes on the app's connection.)
+ */
+async function withWriterConnection(orm: Database, work: (writer: Database) => Promise<void>): Promise<void> {
+  // PostgreSQL's pool has several connections already: the import simply takes one of them.
+  if (databaseDialect(orm) === 'postgresql') return work(orm);
+  const file = orm.config.get('dbName');
+  if (!file || file === ':memory:') return work(orm);
+  const writer = await openDatabase({ file });
+  try {
+    await work(writer);
+  } finally {
+    await writer.close(true);
+  }
+}
+
 /** Imports running in this process. A job marked running that is not here was cut off by a restart. */
 export const runningImports = new Set<string>();
 
@@ -135,9 +150,7 @@ export async function runImport(
   };
   try {
     const plan = await planImport(orm.em.fork(), job.organizationId, job.supplier, table, mapping, progress);
-    // On the app's own connections (see writePlan): on SQLite that is its one connection, so
-    // nothing else of this process can hold the write lock meanwhile (docs/adr/0004).
-    await writePlan(orm.em.fork(), job.organizationId, plan);
+    await withWriterConnection(orm, (writer) => writePlan(writer.em.fork(), job.organizationId, plan));
     await orm.em.fork().nativeUpdate(
       ImportJob,
       { id: job.id },
