@@ -1,17 +1,8 @@
-import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 import type { InstallerPackPdfModel, PackPdfCircuit } from '../src/modules/quote-pdf/installer-pack-model';
 import { renderInstallerPackPdf } from '../src/modules/quote-pdf/render-installer-pack-pdf';
+import { pdfPages } from './support/pdf-text';
 
-/** Each page's text, in page order. */
-async function pdfPages(bytes: Buffer): Promise<string[]> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).pages.map((p) => p.text.replace(/\s+/g, ' ').trim());
-  } finally {
-    await parser.destroy();
-  }
-}
 
 function circuit(title: string, steps: number): PackPdfCircuit {
   return {
@@ -57,7 +48,7 @@ describe("installer's pack PDF page numbers", () => {
   // element: a last circuit running over several pages, or no circuits at all, must still
   // number every page out of the right total.
   it('numbers every page out of the total when the last circuit runs over several pages', async () => {
-    const pages = await pdfPages(await renderInstallerPackPdf(model([circuit('Front path', 4), circuit('Back wall', 160)])));
+    const pages = await pdfPages(await renderInstallerPackPdf(model([circuit('Front path', 4), circuit('Back wall', 160)])), { squeeze: true });
     expect(pages.length).toBeGreaterThanOrEqual(5);
     pages.forEach((page, i) => expect(page).toContain(`Q-0001 installer’s pack · no prices · page ${i + 1} of ${pages.length}`));
     expect(pages.filter((page) => /^Circuit \d+\. /.test(page)).map((page) => /^Circuit (\d+)/.exec(page)![1])).toEqual([
@@ -68,7 +59,7 @@ describe("installer's pack PDF page numbers", () => {
   }, 30_000);
 
   it('numbers the single page of a pack with no circuits', async () => {
-    const pages = await pdfPages(await renderInstallerPackPdf(model([])));
+    const pages = await pdfPages(await renderInstallerPackPdf(model([])), { squeeze: true });
     expect(pages).toHaveLength(1);
     expect(pages[0]).toContain('This job has no circuits designed yet.');
     expect(pages[0]).toContain('page 1 of 1');

@@ -6,7 +6,6 @@
  * (common practice, the block planner); 10 % cable slack (common practice, the takeoff's
  * default); driver current ± 5 % and forward voltage ± 10 % (common practice).
  */
-import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   JobListResponse,
@@ -24,6 +23,7 @@ import { presentProduct } from '../src/modules/catalogue/presenter';
 import { circuitSettings, rederiveRevision, storedResult } from '../src/modules/circuits/service';
 import { startTestServer, type TestServer } from './harness';
 import { createJobFixture } from './job-fixtures';
+import { binary, pdfPages, pdfText } from './support/pdf-text';
 
 let t: TestServer;
 let installer: Awaited<ReturnType<TestServer['signIn']>>;
@@ -67,29 +67,7 @@ function expectNoPrices(body: unknown) {
   for (const amount of ['3900', '2100', '5200', '2800', '1100', '£']) expect(text).not.toContain(amount);
 }
 
-/** Each page's text, in page order. */
-async function pdfPages(bytes: Buffer): Promise<string[]> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).pages.map((p) => p.text.replace(/\s+/g, ' ').trim());
-  } finally {
-    await parser.destroy();
-  }
-}
 
-async function pdfText(bytes: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
-function binary(res: { on: (e: string, cb: (c?: Buffer) => void) => void }, cb: (err: Error | null, body: Buffer) => void) {
-  const chunks: Buffer[] = [];
-  res.on('data', (c) => chunks.push(c!));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-}
 
 /** The designed schedule as the page starts it: each block's terminals as planned. */
 async function designedBlocks(): Promise<AsWiredBlock[]> {
@@ -415,7 +393,7 @@ describe('GET /api/jobs/:id/pack.pdf, constant voltage', () => {
 
     // each circuit starts a page of its own, in order, and the footer numbers every page of
     // the document (the pick list's pages and each circuit's) out of the same total
-    const pages = await pdfPages(res.body as Buffer);
+    const pages = await pdfPages(res.body as Buffer, { squeeze: true });
     expect(pages.length).toBeGreaterThanOrEqual(3);
     pages.forEach((page, i) => expect(page).toContain(`installer’s pack · no prices · page ${i + 1} of ${pages.length}`));
     const starts = pages.flatMap((page, i) => {

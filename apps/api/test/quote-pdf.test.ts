@@ -1,10 +1,10 @@
 import { writeFile } from 'node:fs/promises';
 import type { EstimateContent, EstimateLine } from '@gloaming/contracts';
-import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote, CUSTOMER_NAME, GARDEN_DEPOSIT_TEXT, GARDEN_TOTAL_TEXT, gardenEstimate } from './estimate-fixture';
 import { gardenJpeg, tinyPng } from './image-fixtures';
+import { binary, pdfPages, pdfText } from './support/pdf-text';
 
 let t: TestServer;
 beforeAll(async () => {
@@ -12,15 +12,6 @@ beforeAll(async () => {
 });
 afterAll(async () => t.close());
 
-/** The text of each page, in order. */
-async function pdfPages(bytes: Buffer): Promise<string[]> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).pages.map((p) => p.text);
-  } finally {
-    await parser.destroy();
-  }
-}
 
 const words = (text: string) => text.split(/\s+/).filter(Boolean);
 
@@ -82,20 +73,7 @@ function longEstimate(lines: number, sections: number): EstimateContent {
   };
 }
 
-async function pdfText(bytes: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
 
-function binary(res: { on: (e: string, cb: (c?: Buffer) => void) => void }, cb: (err: Error | null, body: Buffer) => void) {
-  const chunks: Buffer[] = [];
-  res.on('data', (c) => chunks.push(c!));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-}
 
 describe('GET /api/quotes/:id/revisions/:revisionId/pdf', () => {
   it('renders the quotation with the customer, the total and the deposit, never a cost', async () => {

@@ -1,10 +1,10 @@
-import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { RevisionSettings } from '@gloaming/contracts';
 import { Photo, QuoteRevision } from '@gloaming/db';
 import { startTestServer, type TestServer } from './harness';
 import { createGardenQuote } from './estimate-fixture';
 import { gardenJpeg, tinyPng } from './image-fixtures';
+import { binary, pdfText } from './support/pdf-text';
 
 let t: TestServer;
 beforeAll(async () => {
@@ -12,20 +12,7 @@ beforeAll(async () => {
 });
 afterAll(async () => t.close());
 
-async function pdfText(bytes: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
 
-function binary(res: { on: (e: string, cb: (c?: Buffer) => void) => void }, cb: (err: Error | null, body: Buffer) => void) {
-  const chunks: Buffer[] = [];
-  res.on('data', (c) => chunks.push(c!));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-}
 
 describe('photos of a sent revision', () => {
   it('are frozen on send: later captions, order, additions and unticking do not change its PDF; a photo it shows cannot be deleted', async () => {
