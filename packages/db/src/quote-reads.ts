@@ -15,7 +15,7 @@ import type { EntityManager } from '@mikro-orm/core';
 import type { RevisionState } from './entities/quote-revision';
 import type { QuoteStatus } from './entities/quote';
 import type { CircuitKind } from './entities/circuit';
-import { dateFromSql, dateParam, jsonFromSql, jsonText, runPlain, sqlDialect, sqlEm } from './sql-query';
+import { booleanFromSql, dateFromSql, dateParam, jsonFromSql, jsonText, runPlain, sqlDialect, sqlEm } from './sql-query';
 
 export interface QuoteRow {
   id: string;
@@ -362,8 +362,7 @@ export async function readProducts(em: EntityManager, organizationId: string, id
       unit: row.unit as string,
       costMinor: Number(row.cost_minor),
       listPriceMinor: Number(row.list_price_minor),
-      // SQLite keeps booleans as 0/1, PostgreSQL as booleans
-      active: row.active === true || row.active === 1 || row.active === '1',
+      active: booleanFromSql(row.active),
       spec: jsonObject(row.spec),
       createdAt: date(row.created_at, what),
       updatedAt: date(row.updated_at, what),

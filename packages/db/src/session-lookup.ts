@@ -6,7 +6,7 @@
  */
 import type { EntityManager } from '@mikro-orm/core';
 import type { Role } from '@gloaming/contracts';
-import { dateFromSql, runPlain, sqlEm } from './sql-query';
+import { booleanFromSql, dateFromSql, runPlain, sqlEm } from './sql-query';
 
 export interface SessionWithUser {
   sessionId: string;
@@ -75,8 +75,7 @@ export async function findSessionWithUser(em: EntityManager, id: string): Promis
       email: row.email,
       name: row.name,
       role: row.role,
-      // SQLite keeps booleans as 0/1, PostgreSQL as booleans
-      active: row.active === true || row.active === 1 || row.active === '1',
+      active: booleanFromSql(row.active),
       organizationId: row.user_organization_id,
       organizationName: row.organization_name,
     },

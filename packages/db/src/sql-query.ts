@@ -70,6 +70,11 @@ export function containsIgnoringCase(em: EntityManager, column: string, text: st
   return { [raw((alias: string) => `${alias}.${column} ${op} ? escape '\\'`, [pattern])]: [] };
 }
 
+/** A boolean read back by raw SQL: SQLite keeps booleans as 0/1, PostgreSQL as booleans. */
+export function booleanFromSql(v: unknown): boolean {
+  return v === true || v === 1 || v === '1';
+}
+
 /**
  * A datetime read back by raw SQL, as a Date: SQLite hands back MikroORM datetimes as stored
  * (epoch milliseconds, or ISO text), PostgreSQL's driver as timestamptz text

@@ -8,7 +8,7 @@ import {
 } from '@gloaming/contracts';
 import type { QuoteEvent, QuoteRevision, QuoteRow, RevisionWithContentRow } from '@gloaming/db';
 import { storedJsonText, withJsonText, type JsonText } from '../../http/json-text';
-import { revisionContent, revisionSettings } from './service';
+import { revisionSettings } from './service';
 
 const iso = (d: Date) => d.toISOString();
 const isoOrNull = (d: Date | null | undefined) => (d ? d.toISOString() : null);
@@ -52,7 +52,7 @@ function totalsOf(revision: Pick<QuoteRevision, 'totals'>): RevisionTotals | nul
   return parsed.success ? parsed.data : null;
 }
 
-/** What a revision summary reads: never the estimate document (see listRevisionSummaries). */
+/** What a revision summary reads: never the estimate document (see readRevisionSummaries). */
 type RevisionSummarySource = Pick<QuoteRevision, 'id' | 'number' | 'state' | 'totals' | 'createdAt' | 'updatedAt' | 'sentAt'>;
 
 export function presentRevisionSummary(revision: RevisionSummarySource): RevisionSummary {
@@ -67,8 +67,9 @@ export function presentRevisionSummary(revision: RevisionSummarySource): Revisio
   };
 }
 
-function revisionViewWithout(revision: RevisionSummarySource & Pick<QuoteRevision, 'settings' | 'version'>): Omit<QuoteRevisionView, 'content'> {
-  return {
+/** A revision's view as JSON text, the estimate passed through as stored (readRevision with its content). */
+export function revisionViewJson(revision: RevisionWithContentRow): JsonText<QuoteRevisionView> {
+  const view: Omit<QuoteRevisionView, 'content'> = {
     id: revision.id,
     number: revision.number,
     state: revision.state,
@@ -79,15 +80,7 @@ function revisionViewWithout(revision: RevisionSummarySource & Pick<QuoteRevisio
     updatedAt: iso(revision.updatedAt),
     sentAt: isoOrNull(revision.sentAt),
   };
-}
-
-export function presentRevision(revision: QuoteRevision): QuoteRevisionView {
-  return { ...revisionViewWithout(revision), content: revisionContent(revision) };
-}
-
-/** The same view as JSON text, the estimate passed through as stored (readRevision with its content). */
-export function revisionViewJson(revision: RevisionWithContentRow): JsonText<QuoteRevisionView> {
-  return withJsonText<QuoteRevisionView, 'content'>(revisionViewWithout(revision), 'content', storedJsonText(revision.contentJson));
+  return withJsonText<QuoteRevisionView, 'content'>(view, 'content', storedJsonText(revision.contentJson));
 }
 
 /** Needs actor and revision loaded (listQuoteEvents does that). */

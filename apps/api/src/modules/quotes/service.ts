@@ -9,7 +9,6 @@
  * - loadRevision(em, quote, number)              one revision by number, or 404
  * - readQuoteForFirm(em, organizationId, id)     the quote as a plain row (readQuote), or 404: for reads and saves that change no entity
  * - readRevisionOf(em, quote, number, options)    one revision as a plain row (readRevision), or 404
- * - listRevisionSummaries(em, quote)             every revision, newest first, without its document
  * - revisionContent(revision) / revisionSettings(revision)   the JSON parsed with the contracts
  * - priceRevision(content, settings)             the engine's totals for a document
  * - appendQuoteEvent(em, quote, type, actor, data?, revision?)  history + status (persisted, not flushed)
@@ -101,19 +100,6 @@ export async function readRevisionOf(
   const revision = options ? await readRevision(em, quote.id, number, options) : await readRevision(em, quote.id, number);
   if (!revision) throw notFound(number === 'current' ? 'That quote revision' : `Revision ${number} of this quote`);
   return revision;
-}
-
-export async function listRevisions(em: EntityManager, quote: Quote): Promise<QuoteRevision[]> {
-  return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' } });
-}
-
-/**
- * The quote's revisions for a list of summaries: their estimate documents and settings (the
- * bulk of a revision row) are left unloaded. Load a revision whole before this in the same
- * entity manager if it is needed whole (it then stays whole).
- */
-export async function listRevisionSummaries(em: EntityManager, quote: Quote) {
-  return em.find(QuoteRevision, { quote: quote.id }, { orderBy: { number: 'desc' }, exclude: ['content', 'settings'] });
 }
 
 /** The stored estimate document; stored JSON that no longer parses is a server fault, said plainly. */
