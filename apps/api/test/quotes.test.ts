@@ -282,6 +282,15 @@ describe('revisions and events', () => {
 
     const edit = await estimator.put(`/api/quotes/${quote.id}/revisions/2`).send({ version: r2.revision.version, content: content([]) });
     expect(edit.status).toBe(200);
+    // opening the quote shows the current revision's own document, the earlier one listed
+    const opened = QuoteDetailResponse.parse((await estimator.get(`/api/quotes/${quote.id}`).expect(200)).body);
+    expect(opened.revision).toMatchObject({ number: 2, state: 'draft', version: edit.body.revision.version });
+    expect(opened.revision.content).toEqual(content([]));
+    expect(opened.revision.content).not.toEqual(doc);
+    expect(opened.revisions.map((r) => [r.number, r.state])).toEqual([
+      [2, 'draft'],
+      [1, 'sent'],
+    ]);
     const earlier = RevisionResponse.parse((await estimator.get(`/api/quotes/${quote.id}/revisions/1`)).body);
     expect(earlier.revision.content).toEqual(doc);
     expect(earlier.revision.state).toBe('sent');

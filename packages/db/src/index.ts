@@ -13,7 +13,7 @@ export { sqlEm, raw, sqlDialect, jsonValue, jsonNumber, dateParam, dateFromSql, 
 export {
   readQuote,
   readRevision,
-  readRevisionSummaries,
+  readRevisionsWithCurrent,
   readCircuits,
   readProducts,
   saveRevisionDocument,

@@ -190,20 +190,39 @@ export async function readRevision(
   return options.content ? { ...revision, contentJson: row.content_json as string } : revision;
 }
 
-/** Every revision of a quote, newest first, without its document. */
-export async function readRevisionSummaries(em: EntityManager, quoteId: string): Promise<Omit<RevisionRow, 'settings'>[]> {
+/**
+ * What opening a quote shows of its revisions, in one query: every revision newest first
+ * without its document, and the newest (the current one) with its settings and its estimate
+ * as text. Null when the quote has no revision.
+ */
+export async function readRevisionsWithCurrent(
+  em: EntityManager,
+  quoteId: string,
+): Promise<{ current: RevisionWithContentRow; summaries: Omit<RevisionRow, 'settings'>[] } | null> {
   const knex = sqlEm(em).getKnex();
+  const content = sqlDialect(em) === 'postgresql' ? 'content::text' : 'content';
   const rows = (await runPlain(
     em,
     knex('quote_revisions')
       .where('quote_id', quoteId)
       .orderBy('number', 'desc')
-      .select(...REVISION_COLUMNS, 'totals'),
+      .select(
+        ...REVISION_COLUMNS,
+        'settings',
+        'totals',
+        // only the newest row carries its document (row_number needs SQLite 3.25 / any PostgreSQL)
+        knex.raw(`case when row_number() over (order by number desc) = 1 then ${content} end as content_json`),
+      ),
   )) as Record<string, unknown>[];
-  return rows.map((row) => {
-    const { settings: _settings, ...rest } = revisionOf({ ...row, settings: null });
-    return rest;
-  });
+  const [newest] = rows;
+  if (!newest) return null;
+  return {
+    current: { ...revisionOf(newest), contentJson: newest.content_json as string },
+    summaries: rows.map((row) => {
+      const { settings: _settings, ...rest } = revisionOf(row);
+      return rest;
+    }),
+  };
 }
 
 /** The circuits of a revision in their order. */

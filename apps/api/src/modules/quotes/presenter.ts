@@ -52,7 +52,7 @@ function totalsOf(revision: Pick<QuoteRevision, 'totals'>): RevisionTotals | nul
   return parsed.success ? parsed.data : null;
 }
 
-/** What a revision summary reads: never the estimate document (see readRevisionSummaries). */
+/** What a revision summary reads: never the estimate document (see readRevisionsWithCurrent). */
 type RevisionSummarySource = Pick<QuoteRevision, 'id' | 'number' | 'state' | 'totals' | 'createdAt' | 'updatedAt' | 'sentAt'>;
 
 export function presentRevisionSummary(revision: RevisionSummarySource): RevisionSummary {

@@ -10,11 +10,12 @@ import {
   type QuoteRevisionView,
   type SaveRevisionResponse,
 } from '@gloaming/contracts';
-import { containsIgnoringCase, Quote, User, readRevisionSummaries, type EntityManager, type QuoteRow } from '@gloaming/db';
+import { containsIgnoringCase, Quote, User, readRevisionsWithCurrent, type EntityManager, type QuoteRow } from '@gloaming/db';
 import type { ModuleDeps } from '../../app-deps';
 import { allowRoles, moduleRouter, route, type RegisteredRoute } from '../../http/routes';
 import { sendJsonText, withJsonText, type JsonText } from '../../http/json-text';
 import { validatedBody } from '../../http/validate';
+import { notFound } from '../../http/problem';
 import { presentQuoteEvent, presentQuoteSummary, presentRevisionSummary, revisionViewJson } from './presenter';
 import { createQuote, listQuoteEvents, loadQuoteForFirm, readQuoteForFirm, readRevisionOf, reviseQuote, saveRevisionContent } from './service';
 
@@ -31,12 +32,12 @@ export const quoteBodyParser = express.json({ limit: QUOTE_BODY_LIMIT });
 
 /** A quote with its current revision (the estimate passed through as stored) and the list of revisions. */
 async function detail(em: EntityManager, quote: QuoteRow): Promise<JsonText<QuoteDetailResponse>> {
-  const revision = await readRevisionOf(em, quote, 'current', { content: true });
-  const revisions = await readRevisionSummaries(em, quote.id);
+  const revisions = await readRevisionsWithCurrent(em, quote.id);
+  if (!revisions) throw notFound('That quote revision');
   return withJsonText<QuoteDetailResponse, 'revision'>(
-    { quote: presentQuoteSummary(quote), revisions: revisions.map(presentRevisionSummary) },
+    { quote: presentQuoteSummary(quote), revisions: revisions.summaries.map(presentRevisionSummary) },
     'revision',
-    revisionViewJson(revision),
+    revisionViewJson(revisions.current),
   );
 }
 
