@@ -15,7 +15,7 @@ import type { EntityManager } from '@mikro-orm/core';
 import type { RevisionState } from './entities/quote-revision';
 import type { QuoteStatus } from './entities/quote';
 import type { CircuitKind } from './entities/circuit';
-import { booleanFromSql, dateFromSql, dateParam, jsonFromSql, jsonText, runPlain, sqlDialect, sqlEm } from './sql-query';
+import { booleanFromSql, dateFromSql, dateParam, jsonFromSql, jsonText, jsonTextSql, runPlain, sqlDialect, sqlEm } from './sql-query';
 
 export interface QuoteRow {
   id: string;
@@ -200,7 +200,6 @@ export async function readRevisionsWithCurrent(
   quoteId: string,
 ): Promise<{ current: RevisionWithContentRow; summaries: Omit<RevisionRow, 'settings'>[] } | null> {
   const knex = sqlEm(em).getKnex();
-  const content = sqlDialect(em) === 'postgresql' ? 'content::text' : 'content';
   const rows = (await runPlain(
     em,
     knex('quote_revisions')
@@ -211,17 +210,15 @@ export async function readRevisionsWithCurrent(
         'settings',
         'totals',
         // only the newest row carries its document (row_number needs SQLite 3.25 / any PostgreSQL)
-        knex.raw(`case when row_number() over (order by number desc) = 1 then ${content} end as content_json`),
+        knex.raw(`case when row_number() over (order by number desc) = 1 then ${jsonTextSql(em, 'content')} end as content_json`),
       ),
   )) as Record<string, unknown>[];
-  const [newest] = rows;
+  const revisions = rows.map(revisionOf);
+  const [newest] = revisions;
   if (!newest) return null;
   return {
-    current: { ...revisionOf(newest), contentJson: newest.content_json as string },
-    summaries: rows.map((row) => {
-      const { settings: _settings, ...rest } = revisionOf(row);
-      return rest;
-    }),
+    current: { ...newest, contentJson: rows[0]!.content_json as string },
+    summaries: revisions.map(({ settings: _settings, ...summary }) => summary),
   };
 }
 

@@ -114,9 +114,14 @@ export async function runPlain<T>(em: EntityManager, query: PromiseLike<T>): Pro
  * is cast. `column` is a (table-qualified) SQL column; `as` the name it comes back under.
  */
 export function jsonText(em: EntityManager, column: string, as: string): ReturnType<Knex['raw']> {
-  if (!SQL_REF.test(column) || !SQL_COLUMN.test(as)) throw new Error(`Not a plain column: ${column} as ${as}`);
-  const knex = sqlEm(em).getKnex();
-  return sqlDialect(em) === 'postgresql' ? knex.raw(`${column}::text as ${as}`) : knex.raw(`${column} as ${as}`);
+  if (!SQL_COLUMN.test(as)) throw new Error(`Not a plain column name: ${as}`);
+  return sqlEm(em).getKnex().raw(`${jsonTextSql(em, column)} as ${as}`);
+}
+
+/** The SQL expression of a json column as its JSON text (jsonText without the name), for use inside a larger expression. */
+export function jsonTextSql(em: EntityManager, column: string): string {
+  if (!SQL_REF.test(column)) throw new Error(`Not a plain column: ${column}`);
+  return sqlDialect(em) === 'postgresql' ? `${column}::text` : column;
 }
 
 /** A json column read by raw SQL, as a value: SQLite hands back text, PostgreSQL parsed jsonb. */
