@@ -118,12 +118,14 @@ async function main(): Promise<void> {
   const shutdown = async (signal: string) => {
     if (closing) return;
     closing = true;
-    console.log(`${signal}: shutting down…`);
     // New requests get 503 from here on; running ones finish; the listener stops accepting.
     drain();
     server.closeIdleConnections();
     const timer = setTimeout(() => server.closeAllConnections(), 5000);
-    await new Promise<void>((r) => server.close(() => r()));
+    const closed = new Promise<void>((r) => server.close(() => r()));
+    // said once the listener is closed, so whoever reads it can count on new connections being refused
+    console.log(`${signal}: shutting down…`);
+    await closed;
     clearTimeout(timer);
     stopExpirySweep();
     await stopOutbox();
