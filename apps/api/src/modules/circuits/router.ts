@@ -57,18 +57,19 @@ export function circuitsRouter(_deps: ModuleDeps, registry: RegisteredRoute[]) {
         const quote = await readQuoteForFirm(em, auth.organizationId, input.params.id);
         const revision = await readRevisionOf(em, quote, input.params.revisionNumber);
         const circuits = await readCircuits(em, revision.id);
+        const designs = circuits.map(circuitDesign); // parsed once, for the products and the views
         const checkSettings = circuitSettings(revision, quote.organization);
         const products = await firmProducts(
           em,
           auth.organizationId,
-          circuits.flatMap((c) => productRefs(circuitDesign(c)).map((r) => r.id)),
+          designs.flatMap((d) => productRefs(d).map((r) => r.id)),
         );
         sendJsonText(
           res,
           withJsonText<CircuitListResponse, 'circuits'>(
             { products, revision: presentRevisionState(revision), profile: checkSettings.profile, checkSettings },
             'circuits',
-            arrayJsonText(circuits.map(circuitViewJson)),
+            arrayJsonText(circuits.map((c, i) => circuitViewJson(c, designs[i]))),
           ),
         );
       },

@@ -105,7 +105,10 @@ export function storedResult(evaluation: CircuitEvaluation): CircuitResult {
   };
 }
 
-function circuitViewWithout(circuit: Omit<CircuitRow, 'resultJson'>): Omit<CircuitView, 'result'> {
+function circuitViewWithout(
+  circuit: Omit<CircuitRow, 'resultJson'>,
+  design: CircuitDesign = circuitDesign(circuit),
+): Omit<CircuitView, 'result'> {
   return {
     id: circuit.id,
     revisionId: circuit.revision.id,
@@ -113,7 +116,7 @@ function circuitViewWithout(circuit: Omit<CircuitRow, 'resultJson'>): Omit<Circu
     name: circuit.name,
     kind: circuit.kind,
     position: circuit.position,
-    design: circuitDesign(circuit),
+    design,
     version: circuit.version,
     createdAt: circuit.createdAt.toISOString(),
     updatedAt: circuit.updatedAt.toISOString(),
@@ -127,10 +130,11 @@ export function presentCircuit(circuit: Circuit): CircuitView {
 /**
  * The same view as JSON text from a plain row (readCircuits): the engine's stored result
  * passed through as stored (it is the output of `storedResult`, checked when it was saved).
- * The design is parsed, as the contract fills in what older designs lack.
+ * The design is parsed, as the contract fills in what older designs lack; a caller that has
+ * already parsed it passes it in.
  */
-export function circuitViewJson(circuit: CircuitRow): JsonText<CircuitView> {
-  return withJsonText<CircuitView, 'result'>(circuitViewWithout(circuit), 'result', storedJsonText(circuit.resultJson));
+export function circuitViewJson(circuit: CircuitRow, design: CircuitDesign = circuitDesign(circuit)): JsonText<CircuitView> {
+  return withJsonText<CircuitView, 'result'>(circuitViewWithout(circuit, design), 'result', storedJsonText(circuit.resultJson));
 }
 
 export function presentRevisionState(revision: Pick<QuoteRevision, 'id' | 'number' | 'state' | 'version'>) {
