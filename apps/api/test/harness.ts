@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { afterEach, beforeEach } from 'vitest';
 import type { Role } from '@gloaming/contracts';
 import { startMailCatcher, type MailCatcher } from '@gloaming/fakes';
 import { createFirm, openTestDatabase, type FirmFixture } from '@gloaming/db/testing';
@@ -23,7 +24,32 @@ export interface TestServer extends GloamingApp {
   close(): Promise<void>;
 }
 
-const quietLogger = { info: () => {}, error: () => {} };
+/**
+ * What the server logged as an error during the running test. Tests make errors on purpose, so
+ * they are kept quiet; when a test fails they are printed with it, so a failure seen only on a
+ * CI machine still shows the server's own reason (a rolled-back import, a busy database).
+ */
+const serverErrors: string[] = [];
+const quietLogger = {
+  info: () => {},
+  error: (msg: string, err?: unknown) => {
+    const code = (err as { code?: unknown } | undefined)?.code;
+    const detail =
+      err instanceof Error
+        ? `${err.name}${code ? ` (${String(code)})` : ''}: ${err.message.length > 400 ? `…${err.message.slice(-400)}` : err.message}`
+        : err === undefined
+          ? ''
+          : String(err);
+    serverErrors.push(detail ? `${msg}: ${detail}` : msg);
+  },
+};
+beforeEach(() => {
+  serverErrors.length = 0;
+});
+afterEach(({ task }) => {
+  if (task.result?.state === 'fail' && serverErrors.length)
+    console.error(`The server logged during "${task.name}":\n${serverErrors.join('\n')}`);
+});
 
 /**
  * The PostgreSQL server the suite runs against (`npm run test:postgres` sets DATABASE_URL to a

@@ -101,7 +101,8 @@ export function ormConfig(options: DatabaseOptions): DatabaseConfig {
     pool: {
       afterCreate: (conn: SqliteHandle, done: (err: Error | null, conn: SqliteHandle) => void) => {
         const wal = file === ':memory:' ? '' : 'PRAGMA journal_mode = WAL;';
-        conn.exec(`${wal} PRAGMA foreign_keys = ON; PRAGMA busy_timeout = ${timeout}; PRAGMA synchronous = NORMAL;`, (err) =>
+        // the busy timeout first, so that even the journal-mode pragma waits for a lock instead of failing at once
+        conn.exec(`PRAGMA busy_timeout = ${timeout}; ${wal} PRAGMA foreign_keys = ON; PRAGMA synchronous = NORMAL;`, (err) =>
           done(err, conn),
         );
       },
